@@ -1,0 +1,26 @@
+// Outcome codes of every Apportion solver. Solvers return a status with their result and
+// never throw through their API; a result whose status is not kOptimal carries no flows.
+#pragma once
+
+namespace apportion {
+
+enum class SolveStatus {
+  kOptimal,     // the result is optimal and verified
+  kInfeasible,  // no flow satisfies the constraints (e.g. supplies that cannot be routed)
+  kUnbounded,   // the objective has no bound (a negative-cost cycle of infinite capacity)
+  kBadInput,    // the input breaks a precondition (unknown node, NaN capacity, ...)
+  kNotSolved,   // no solve has run yet
+};
+
+inline const char* status_name(SolveStatus s) {
+  switch (s) {
+    case SolveStatus::kOptimal: return "optimal";
+    case SolveStatus::kInfeasible: return "infeasible";
+    case SolveStatus::kUnbounded: return "unbounded";
+    case SolveStatus::kBadInput: return "bad input";
+    case SolveStatus::kNotSolved: return "not solved";
+  }
+  return "unknown";
+}
+
+}  // namespace apportion

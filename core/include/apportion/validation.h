@@ -1,0 +1,18 @@
+// Validation of a network document before any solve.
+//
+// Errors (the document is not solved): duplicate ids, node references out of range,
+// negative, NaN or infinite numbers where finite non-negative ones are required, a demand
+// whose origin is its destination, non-positive weights, shared two-way links with a
+// negative cost, and the size limits of size_limits.h.
+// Warnings (solved anyway): self-loops, zero-capacity arcs, isolated nodes, and demands
+// whose destination cannot be reached from their origin over enabled arcs.
+#pragma once
+
+#include "apportion/diagnostics.h"
+#include "apportion/network.h"
+
+namespace apportion {
+
+Diagnostics validate(const Network& net);
+
+}  // namespace apportion

@@ -1,0 +1,217 @@
+// DIMACS max-flow and min-cost-flow files; see network_dimacs.h.
+#include "apportion/network_dimacs.h"
+
+#include <sstream>
+#include <unordered_map>
+
+#include "apportion/number_text.h"
+#include "apportion/size_limits.h"
+#include "apportion/validation.h"
+
+namespace apportion {
+
+namespace {
+
+struct Written {
+  std::ostringstream body;
+  int arcs = 0;
+};
+
+void write_arcs(const Network& net, bool with_costs, Written& w) {
+  auto one = [&](const Arc& a, int from, int to) {
+    ++w.arcs;
+    w.body << "c arc " << w.arcs << ' ' << a.id << (a.shared_two_way ? " (shared two-way)" : "") << '\n';
+    w.body << "a " << from + 1 << ' ' << to + 1 << ' ';
+    if (with_costs)
+      w.body << "0 " << format_number(a.capacity) << ' ' << format_number(a.cost.value_or(0.0)) << '\n';
+    else
+      w.body << format_number(a.capacity) << '\n';
+  };
+  for (const Arc& a : net.arcs) {
+    if (!a.enabled) continue;
+    one(a, a.from, a.to);
+    if (a.shared_two_way) one(a, a.to, a.from);
+  }
+}
+
+std::string assemble(const Network& net, const char* kind, const std::string& node_lines, const Written& w) {
+  std::ostringstream out;
+  out << "c " << (net.name.empty() ? "Apportion network" : net.name) << '\n';
+  out << "p " << kind << ' ' << net.node_count() << ' ' << w.arcs << '\n';
+  for (int v = 0; v < net.node_count(); ++v) out << "c node " << v + 1 << ' ' << net.nodes[v].id << '\n';
+  out << node_lines << w.body.str();
+  return out.str();
+}
+
+}  // namespace
+
+std::string write_dimacs_max(const Network& net, int demand) {
+  const Demand& k = net.demands.at(demand);
+  std::ostringstream nodes;
+  nodes << "n " << k.origin + 1 << " s\n" << "n " << k.destination + 1 << " t\n";
+  Written w;
+  write_arcs(net, false, w);
+  return assemble(net, "max", nodes.str(), w);
+}
+
+std::string write_dimacs_min(const Network& net) {
+  std::ostringstream nodes;
+  for (int v = 0; v < net.node_count(); ++v)
+    if (net.nodes[v].supply != 0) nodes << "n " << v + 1 << ' ' << format_number(net.nodes[v].supply) << '\n';
+  Written w;
+  write_arcs(net, true, w);
+  return assemble(net, "min", nodes.str(), w);
+}
+
+LoadResult read_dimacs(const std::string& text) {
+  LoadResult result;
+  Diagnostics& d = result.diagnostics;
+  if (text.size() > SizeLimits::kMaxFileBytes) {
+    d.error("file", "", "", "larger than the limit of 512 MiB");
+    return result;
+  }
+  Network net;
+  std::string kind;
+  long long declared_arcs = 0;
+  int source = -1, sink = -1;
+  std::unordered_map<long long, std::string> arc_ids;
+  std::istringstream in(text);
+  std::string line;
+  int lineno = 0;
+  auto where = [&lineno] { return std::to_string(lineno); };
+  auto node_index = [&](const std::string& tok, const char* field) -> int {
+    std::string why;
+    auto v = parse_number(tok, &why);
+    if (!v || *v != static_cast<long long>(*v) || *v < 1 || *v > net.node_count()) {
+      d.error("line", where(), field, "'" + tok + "' is not a node number between 1 and " +
+                                          std::to_string(net.node_count()));
+      return -1;
+    }
+    return static_cast<int>(*v) - 1;
+  };
+  auto number = [&](const std::string& tok, const char* field) -> double {
+    std::string why;
+    auto v = parse_number(tok, &why);
+    if (!v) d.error("line", where(), field, "'" + tok + "' " + why);
+    return v.value_or(0.0);
+  };
+
+  while (std::getline(in, line)) {
+    ++lineno;
+    if (!line.empty() && line.back() == '\r') line.pop_back();
+    std::istringstream ls(line);
+    std::string tag;
+    if (!(ls >> tag)) continue;
+    if (tag == "c") {
+      std::string what;
+      long long k = 0;
+      if (ls >> what >> k && (what == "node" || what == "arc")) {
+        std::string id;
+        std::getline(ls >> std::ws, id);
+        const std::string suffix = " (shared two-way)";
+        if (id.size() > suffix.size() && id.compare(id.size() - suffix.size(), suffix.size(), suffix) == 0)
+          id.resize(id.size() - suffix.size());
+        if (what == "node" && k >= 1 && k <= net.node_count() && !id.empty()) net.nodes[k - 1].id = id;
+        if (what == "arc" && !id.empty()) arc_ids[k] = id;
+      }
+      continue;
+    }
+    if (tag == "p") {
+      long long n = 0;
+      if (!kind.empty()) {
+        d.error("line", where(), "p", "a second problem line");
+        break;
+      }
+      if (!(ls >> kind >> n >> declared_arcs) || (kind != "max" && kind != "min")) {
+        d.error("line", where(), "p", "expected 'p max N M' or 'p min N M'");
+        break;
+      }
+      if (n < 0 || n > SizeLimits::kMaxNodes || declared_arcs < 0 || declared_arcs > SizeLimits::kMaxArcs) {
+        d.error("line", where(), "p", "node or arc count outside the size limits");
+        break;
+      }
+      net.nodes.resize(n);
+      for (long long v = 0; v < n; ++v) net.nodes[v].id = std::to_string(v + 1);
+      net.arcs.reserve(declared_arcs);
+      continue;
+    }
+    if (kind.empty()) {
+      d.error("line", where(), tag, "comes before the problem line");
+      break;
+    }
+    std::vector<std::string> tok;
+    for (std::string t; ls >> t;) tok.push_back(t);
+    if (tag == "n") {
+      if (tok.size() != 2) {
+        d.error("line", where(), "n", "expected 'n ID s|t' or 'n ID SUPPLY'");
+        continue;
+      }
+      int v = node_index(tok[0], "n");
+      if (v < 0) continue;
+      if (kind == "max") {
+        if (tok[1] == "s")
+          source = v;
+        else if (tok[1] == "t")
+          sink = v;
+        else
+          d.error("line", where(), "n", "a max-flow node line ends in 's' or 't'");
+      } else {
+        net.nodes[v].supply = number(tok[1], "supply");
+      }
+    } else if (tag == "a") {
+      const std::size_t want = kind == "max" ? 3 : 5;
+      if (tok.size() != want) {
+        d.error("line", where(), "a", kind == "max" ? "expected 'a U V CAP'" : "expected 'a U V LOW CAP COST'");
+        continue;
+      }
+      if (static_cast<long long>(net.arcs.size()) >= declared_arcs) {
+        d.error("line", where(), "a", "more arcs than the problem line declares");
+        break;
+      }
+      Arc a;
+      a.from = node_index(tok[0], "from");
+      a.to = node_index(tok[1], "to");
+      if (kind == "max") {
+        a.capacity = number(tok[2], "capacity");
+      } else {
+        if (number(tok[2], "lower bound") != 0.0)
+          d.error("line", where(), "lower bound", "lower bounds other than 0 are not supported");
+        a.capacity = number(tok[3], "capacity");
+        a.cost = number(tok[4], "cost");
+      }
+      const long long k = static_cast<long long>(net.arcs.size()) + 1;
+      auto it = arc_ids.find(k);
+      a.id = it != arc_ids.end() ? it->second : "a" + std::to_string(k);
+      if (a.from < 0 || a.to < 0) continue;
+      net.arcs.push_back(std::move(a));
+    } else {
+      d.error("line", where(), tag, "unknown line type '" + tag + "'");
+    }
+  }
+  if (kind.empty() && !d.has_errors()) d.error("file", "", "p", "no problem line ('p max' or 'p min')");
+  if (d.has_errors()) return result;
+  if (static_cast<long long>(net.arcs.size()) != declared_arcs)
+    d.warning("file", "", "p", "the problem line declares " + std::to_string(declared_arcs) + " arcs, the file has " +
+                                   std::to_string(net.arcs.size()));
+  // Ids written by write_dimacs_* repeat for the two lanes of a shared two-way arc: keep
+  // them apart so that the document stays valid.
+  std::unordered_map<std::string, int> seen;
+  for (Arc& a : net.arcs)
+    if (seen[a.id]++ > 0) a.id += "~" + std::to_string(seen[a.id] - 1);
+  if (kind == "max") {
+    if (source < 0 || sink < 0) {
+      d.error("file", "", "n", "a max-flow file needs one 's' and one 't' node line");
+      return result;
+    }
+    Demand k;
+    k.id = "d1";
+    k.origin = source;
+    k.destination = sink;
+    net.demands.push_back(k);
+  }
+  d.append(validate(net));
+  if (!d.has_errors()) result.network = std::move(net);
+  return result;
+}
+
+}  // namespace apportion

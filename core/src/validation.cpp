@@ -1,0 +1,142 @@
+// Validation of a network document; see validation.h for the rules.
+#include "apportion/validation.h"
+
+#include <cmath>
+#include <queue>
+#include <string>
+#include <unordered_set>
+
+#include "apportion/size_limits.h"
+
+namespace apportion {
+
+namespace {
+
+std::string item_name(const std::string& id, std::size_t index) {
+  return id.empty() ? "#" + std::to_string(index + 1) : id;
+}
+
+template <class Items>
+void check_ids(const Items& items, const char* kind, Diagnostics& out) {
+  std::unordered_set<std::string> seen;
+  for (std::size_t i = 0; i < items.size(); ++i) {
+    const std::string& id = items[i].id;
+    if (id.empty()) {
+      out.error(kind, item_name(id, i), "id", "the id is empty");
+    } else if (!seen.insert(id).second) {
+      out.error(kind, id, "id", "duplicate id");
+    }
+    if (id.size() > SizeLimits::kMaxStringLength)
+      out.error(kind, item_name("", i), "id", "longer than " + std::to_string(SizeLimits::kMaxStringLength) + " characters");
+  }
+}
+
+// A finite number within the magnitude limit; `nonnegative` also rejects values below 0.
+void check_number(double v, bool nonnegative, const char* kind, const std::string& id, const char* field,
+                  Diagnostics& out) {
+  if (std::isnan(v)) {
+    out.error(kind, id, field, "is not a number (NaN)");
+  } else if (std::isinf(v)) {
+    out.error(kind, id, field, "is infinite");
+  } else if (nonnegative && v < 0) {
+    out.error(kind, id, field, "is negative (" + std::to_string(v) + ")");
+  } else if (std::abs(v) > SizeLimits::kMaxMagnitude) {
+    out.error(kind, id, field, "exceeds the limit of 1e15 in magnitude");
+  }
+}
+
+}  // namespace
+
+Diagnostics validate(const Network& net) {
+  Diagnostics out;
+  const int n = net.node_count();
+  if (n > SizeLimits::kMaxNodes)
+    out.error("file", "", "nodes", "more than " + std::to_string(SizeLimits::kMaxNodes) + " nodes");
+  if (net.arc_count() > SizeLimits::kMaxArcs)
+    out.error("file", "", "arcs", "more than " + std::to_string(SizeLimits::kMaxArcs) + " arcs");
+  if (net.demands.size() > static_cast<std::size_t>(SizeLimits::kMaxDemands))
+    out.error("file", "", "demands", "more than " + std::to_string(SizeLimits::kMaxDemands) + " demands");
+
+  check_ids(net.nodes, "node", out);
+  check_ids(net.arcs, "arc", out);
+  check_ids(net.demands, "demand", out);
+
+  std::vector<int> degree(n, 0);
+  for (std::size_t i = 0; i < net.nodes.size(); ++i) {
+    const Node& v = net.nodes[i];
+    const std::string id = item_name(v.id, i);
+    check_number(v.supply, false, "node", id, "supply", out);
+    if (v.x) check_number(*v.x, false, "node", id, "x", out);
+    if (v.y) check_number(*v.y, false, "node", id, "y", out);
+    if (v.label.size() > SizeLimits::kMaxStringLength) out.error("node", id, "label", "label too long");
+  }
+
+  for (std::size_t i = 0; i < net.arcs.size(); ++i) {
+    const Arc& a = net.arcs[i];
+    const std::string id = item_name(a.id, i);
+    bool ends_ok = true;
+    if (a.from < 0 || a.from >= n) out.error("arc", id, "from", "refers to an unknown node"), ends_ok = false;
+    if (a.to < 0 || a.to >= n) out.error("arc", id, "to", "refers to an unknown node"), ends_ok = false;
+    check_number(a.capacity, true, "arc", id, "capacity", out);
+    if (a.cost) check_number(*a.cost, false, "arc", id, "cost", out);
+    if (a.transit) check_number(*a.transit, true, "arc", id, "transit", out);
+    if (a.shared_two_way && a.cost && *a.cost < 0)
+      out.error("arc", id, "cost", "a shared two-way link cannot have a negative cost (it would be a negative cycle)");
+    if (ends_ok && a.from == a.to) out.warning("arc", id, "to", "self-loop: the arc starts and ends at the same node");
+    if (a.capacity == 0.0) out.warning("arc", id, "capacity", "zero capacity: the arc carries nothing");
+    if (ends_ok) ++degree[a.from], ++degree[a.to];
+  }
+
+  bool demand_ends_ok = true;
+  for (std::size_t i = 0; i < net.demands.size(); ++i) {
+    const Demand& d = net.demands[i];
+    const std::string id = item_name(d.id, i);
+    bool ok = true;
+    if (d.origin < 0 || d.origin >= n) out.error("demand", id, "origin", "refers to an unknown node"), ok = false;
+    if (d.destination < 0 || d.destination >= n)
+      out.error("demand", id, "destination", "refers to an unknown node"), ok = false;
+    if (ok && d.origin == d.destination) out.error("demand", id, "destination", "is the same node as the origin");
+    if (d.amount) check_number(*d.amount, true, "demand", id, "amount", out);
+    check_number(d.weight, true, "demand", id, "weight", out);
+    if (std::isfinite(d.weight) && d.weight <= 0) out.error("demand", id, "weight", "must be positive");
+    if (d.label.size() > SizeLimits::kMaxStringLength) out.error("demand", id, "label", "label too long");
+    if (ok) ++degree[d.origin], ++degree[d.destination];
+    demand_ends_ok = demand_ends_ok && ok;
+  }
+
+  for (int v = 0; v < n; ++v)
+    if (degree[v] == 0 && net.nodes[v].supply == 0.0)
+      out.warning("node", item_name(net.nodes[v].id, v), "", "isolated: no arc or demand touches it");
+
+  if (out.has_errors() || !demand_ends_ok) return out;
+
+  // Reachability over enabled arcs with capacity, one search per distinct origin.
+  std::vector<std::vector<int>> out_adj(n);
+  for (const Arc& a : net.arcs) {
+    if (!a.enabled || !(a.capacity > 0)) continue;
+    out_adj[a.from].push_back(a.to);
+    if (a.shared_two_way) out_adj[a.to].push_back(a.from);
+  }
+  std::vector<std::vector<int>> demands_from(n);
+  for (std::size_t i = 0; i < net.demands.size(); ++i) demands_from[net.demands[i].origin].push_back(static_cast<int>(i));
+  std::vector<int> mark(n, -1);
+  for (int origin = 0; origin < n; ++origin) {
+    if (demands_from[origin].empty()) continue;
+    std::queue<int> q;
+    q.push(origin);
+    mark[origin] = origin;
+    while (!q.empty()) {
+      int u = q.front();
+      q.pop();
+      for (int w : out_adj[u])
+        if (mark[w] != origin) mark[w] = origin, q.push(w);
+    }
+    for (int i : demands_from[origin])
+      if (mark[net.demands[i].destination] != origin)
+        out.warning("demand", item_name(net.demands[i].id, i), "destination",
+                    "cannot be reached from the origin over enabled arcs");
+  }
+  return out;
+}
+
+}  // namespace apportion

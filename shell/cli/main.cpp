@@ -1,0 +1,41 @@
+// apportion: the command line over Apportion's core. A thin client: it reads files, calls
+// the core, prints tables and writes result files. See `apportion --help`.
+#include <cstring>
+#include <iostream>
+#include <string>
+
+#include "commands.h"
+
+namespace {
+
+const char* kUsage = R"(apportion - fair sharing of network capacity (command line)
+
+Usage: apportion <command> [options]
+
+Commands:
+  validate   check a network file and list its errors and warnings
+  convert    convert a network between JSON, CSV tables and DIMACS
+  maxflow    maximum flow from origins to destinations, with a minimum cut
+  mincut     the minimum cut that limits a maximum flow
+  mincost    minimum-cost flow for an amount or for node supplies
+
+Run 'apportion <command> --help' for the options and an example of each.
+Exit codes: 0 success, 1 no solution (e.g. infeasible supplies), 2 bad input or usage.
+)";
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  using namespace apportion::cli;
+  if (argc < 2 || !std::strcmp(argv[1], "--help") || !std::strcmp(argv[1], "-h") || !std::strcmp(argv[1], "help")) {
+    std::cout << kUsage;
+    return argc < 2 ? kExitBadInput : kExitOk;
+  }
+  const std::string cmd = argv[1];
+  if (cmd == "validate") return run_validate(argc, argv);
+  if (cmd == "convert") return run_convert(argc, argv);
+  if (cmd == "maxflow" || cmd == "mincut") return run_max_flow(argc, argv);
+  if (cmd == "mincost") return run_min_cost_flow(argc, argv);
+  std::cerr << "apportion: unknown command '" << cmd << "'\n" << kUsage;
+  return kExitBadInput;
+}

@@ -1,0 +1,25 @@
+// Loading a network for the command line, in any format the core imports. The format comes
+// from --format or from the file name: .json; .graphml; .max, .min, .dimacs (DIMACS); and
+// CSV tables given as NAME.nodes.csv (NAME.arcs.csv and NAME.demands.csv beside it).
+#pragma once
+
+#include <string>
+
+#include "apportion/load_result.h"
+#include "cli_args.h"
+#include "file_io.h"
+
+namespace apportion::cli {
+
+// Options every subcommand that reads a network accepts.
+inline const std::set<std::string> kLoaderOptions = {"format", "capacity-attribute", "default-capacity",
+                                                     "undirected"};
+
+// Reads the file(s), protects them from being overwritten, and returns the load result.
+// On a read error the result holds a "file" diagnostic.
+LoadResult load_network(const std::string& path, const Args& args, OutputGuard& guard);
+
+// Prints the diagnostics to stderr, one per line.
+void print_diagnostics(const Diagnostics& d);
+
+}  // namespace apportion::cli

@@ -1,0 +1,24 @@
+#!/usr/bin/env bash
+# The README's test command: installs what is missing, builds every preset and runs every
+# test -- native (release, and debug with sanitizers), WebAssembly under node, the
+# cross-checks against outside libraries, the command-line tests and the browser tests.
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+APPORTION_WITH_BROWSER=1 "$root/shell/deps.sh"
+"$root/shell/build.sh" native native-debug wasm
+
+status=0
+for preset in native native-debug wasm; do
+  echo "apportion: tests ($preset)"
+  ctest --preset "$preset" -j2 || status=1
+done
+
+echo "apportion: browser tests"
+(cd tests/browser && npm ci --no-audit --no-fund --silent) || { echo "apportion: npm ci failed" >&2; exit 1; }
+build/native/shell/apportion maxflow demo-networks/harrowmere-fibre.json --json build/demo-maxflow.json >/dev/null
+expected=$(/usr/bin/python3 -c 'import json; print(repr(json.load(open("build/demo-maxflow.json"))["value"]))')
+node tests/browser/smoke.mjs --web build/wasm/web --expect-maxflow "$expected" --artefacts artefacts/browser || status=1
+
+if [ $status = 0 ]; then echo "apportion: all tests passed"; else echo "apportion: some tests FAILED" >&2; fi
+exit $status

@@ -1,0 +1,107 @@
+#!/usr/bin/python3
+"""Tests of the `apportion` command line: exit codes, help, errors and files.
+
+Each check prints one line; the last line is "N passed, M failed"."""
+import argparse
+import json
+import os
+import shutil
+import subprocess
+import sys
+
+ap = argparse.ArgumentParser()
+ap.add_argument("--apportion", required=True)
+ap.add_argument("--root", required=True)
+ap.add_argument("--work", required=True)
+args = ap.parse_args()
+shutil.rmtree(args.work, ignore_errors=True)
+os.makedirs(args.work)
+demos = sorted(os.path.join(args.root, "demo-networks", f)
+               for f in os.listdir(os.path.join(args.root, "demo-networks")) if f.endswith(".json"))
+passed = failed = 0
+
+
+def run(*a):
+    return subprocess.run([args.apportion, *a], capture_output=True, text=True)
+
+
+def check(name, ok, detail=""):
+    global passed, failed
+    if ok:
+        passed += 1
+        print(f"ok    {name}")
+    else:
+        failed += 1
+        print(f"FAIL  {name} {detail}")
+
+
+def w(name, text):
+    p = os.path.join(args.work, name)
+    with open(p, "w") as f:
+        f.write(text)
+    return p
+
+
+# Help: every subcommand answers --help with an example, exit 0.
+for cmd in ["validate", "convert", "maxflow", "mincut", "mincost"]:
+    r = run(cmd, "--help")
+    check(f"{cmd} --help", r.returncode == 0 and "Example" in r.stdout and "demo-networks/" in r.stdout)
+r = run()
+check("no command is a usage error", r.returncode == 2)
+check("unknown command is a usage error", run("frobnicate").returncode == 2)
+check("unknown option is a usage error", run("validate", demos[0], "--bogus").returncode == 2)
+
+# The demo networks validate and solve.
+for d in demos:
+    check(f"validate {os.path.basename(d)}", run("validate", d).returncode == 0)
+    r = run("maxflow", d)
+    check(f"maxflow {os.path.basename(d)}", r.returncode == 0 and "checked: ok" in r.stdout, r.stderr)
+    r = run("mincost", d)
+    check(f"mincost {os.path.basename(d)}", r.returncode in (0, 1) and "planning aid" in (r.stdout + r.stderr), r.stderr)
+
+# Bad input: exit 2, the message names item and field, and no output file appears.
+bad = w("bad.json", json.dumps({"format": "apportion-network", "version": 1, "nodes": [{"id": "a"}, {"id": "b"}],
+                               "arcs": [{"id": "e1", "from": "a", "to": "b", "capacity": -3}],
+                               "demands": [{"id": "k", "origin": "a", "destination": "b", "amount": 1}]}))
+out = os.path.join(args.work, "never.json")
+r = run("maxflow", bad, "--json", out)
+check("a negative capacity is bad input (exit 2)", r.returncode == 2)
+check("the message names arc e1 and field capacity", "arc 'e1', field 'capacity'" in r.stderr, r.stderr)
+check("no output file after an error", not os.path.exists(out))
+r = run("validate", w("broken.json", '{"format": "apportion-network", "version": 1, "nodes": [}'))
+check("broken JSON is bad input with a position", r.returncode == 2 and "byte" in r.stderr, r.stderr)
+check("a missing file is bad input", run("validate", os.path.join(args.work, "missing.json")).returncode == 2)
+
+# No solution: exit 1.
+infeasible = w("infeasible.json", json.dumps({
+    "format": "apportion-network", "version": 1, "nodes": [{"id": "a", "supply": 5}, {"id": "b", "supply": -5}],
+    "arcs": [{"id": "e1", "from": "a", "to": "b", "capacity": 3, "cost": 1}], "demands": []}))
+r = run("mincost", infeasible)
+check("infeasible supplies exit 1", r.returncode == 1, r.stdout + r.stderr)
+
+# Files: the input is never overwritten; outputs appear whole.
+src = w("copy.json", open(demos[0]).read())
+before = open(src).read()
+r = run("convert", src, "--to", "json", src)
+check("refuses to overwrite its input", r.returncode == 2 and open(src).read() == before)
+r = run("maxflow", src, "--json", src)
+check("refuses to write a result over its input", r.returncode == 2 and open(src).read() == before)
+res = os.path.join(args.work, "result.json")
+r = run("maxflow", src, "--json", res, "--csv", os.path.join(args.work, "arcs.csv"))
+data = json.load(open(res))
+check("result JSON carries status, value, cut and check",
+      data["status"] == "optimal" and data["value"] == data["min_cut"]["capacity"] and data["check"]["ok"])
+check("no temporary files are left behind", not [f for f in os.listdir(args.work) if ".tmp-" in f])
+
+# Conversions chain: JSON -> CSV -> JSON -> DIMACS and back solve to the same value.
+base = os.path.join(args.work, "net")
+check("convert to csv", run("convert", demos[0], "--to", "csv", base).returncode == 0)
+check("convert csv to json", run("convert", base + ".nodes.csv", "--to", "json", base + ".json").returncode == 0)
+check("convert to dimacs-max", run("convert", base + ".json", "--to", "dimacs-max", base + ".max").returncode == 0)
+# (units have no place in DIMACS: compare the numbers)
+v1 = run("maxflow", demos[0]).stdout.split()[2]
+v2 = run("maxflow", base + ".max").stdout.split()[2]
+check("the same maximum flow after JSON -> CSV -> JSON -> DIMACS", v1 == v2, f"{v1!r} vs {v2!r}")
+
+print(f"{passed} passed, {failed} failed")
+sys.exit(1 if failed else 0)
