@@ -121,27 +121,28 @@ class NetworkSimplex {
     return static_cast<int>(src_.size()) - 1;
   }
 
-  double reduced_cost(int e) const { return cost_[e] + pi_[src_[e]] - pi_[tgt_[e]]; }
-
-  // Block search: the most violating arc in the first block that has one.
+  // Block search: the most violating arc in the first block that has one, scanning from
+  // where the last search stopped and wrapping around once.
   bool find_entering(int& in) {
     const int m = static_cast<int>(src_.size());
     double best = 0.0;
     int count = block_;
-    for (int k = 0; k < m; ++k) {
-      const int e = (next_arc_ + k) % m;
-      const double v = state_[e] * reduced_cost(e);
-      if (v < best) best = v, in = e;
-      if (--count == 0) {
-        if (cost_tol_.negative(best)) {
-          next_arc_ = (e + 1) % m;
-          return true;
+    for (int pass = 0; pass < 2; ++pass) {
+      const int begin = pass == 0 ? next_arc_ : 0, end = pass == 0 ? m : next_arc_;
+      for (int e = begin; e < end; ++e) {
+        const double v = state_[e] * (cost_[e] + pi_[src_[e]] - pi_[tgt_[e]]);
+        if (v < best) best = v, in = e;
+        if (--count == 0) {
+          if (cost_tol_.negative(best)) {
+            next_arc_ = e + 1 < m ? e + 1 : 0;
+            return true;
+          }
+          count = block_;
         }
-        count = block_;
       }
     }
     if (cost_tol_.negative(best)) {
-      next_arc_ = (in + 1) % m;
+      next_arc_ = in + 1 < m ? in + 1 : 0;
       return true;
     }
     return false;
