@@ -8,7 +8,7 @@ root="$(cd "$here/.." && pwd)"
 
 # Packages every build or test step uses. Versions are Debian 12's (bookworm) own.
 packages=(
-  build-essential cmake ninja-build python3 ca-certificates xz-utils
+  build-essential cmake ninja-build python3 ca-certificates xz-utils curl
   nlohmann-json3-dev catch2            # JSON parsing; the test framework
   emscripten                           # WebAssembly toolchain (3.1.6, clang 14)
   python3-networkx python3-scipy glpk-utils liblemon-dev  # outside references for tests and benchmark
@@ -33,3 +33,5 @@ fi
   ecce377df0f90b292f15dcbd83d438bddc162b2388c881132bde18c787572a1c "$root/third_party/imgui"
 "$here/fetch-source.sh" pugixml 1.13-0.2 pugixml_1.13.orig.tar.gz \
   5c5ad5d7caeb791420408042a7d88c2c6180781bf218feca259fd9d840a888e1 "$root/third_party/pugixml"
+"$here/fetch-source.sh" highs 1.10.0+ds-1 highs_1.10.0+ds.orig.tar.xz \
+  5964fc1ca4f0b23dd45987bbed1838f2e570e96aa624635ac63d277152b6c94a "$root/third_party/highs"

@@ -12,5 +12,6 @@ int run_validate(int argc, char** argv);
 int run_convert(int argc, char** argv);
 int run_max_flow(int argc, char** argv);  // also "mincut": the same solve, the cut first
 int run_min_cost_flow(int argc, char** argv);
+int run_fair(int argc, char** argv);  // fair, throughput, concurrent, feasible, tradeoff
 
 }  // namespace apportion::cli

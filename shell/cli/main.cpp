@@ -19,6 +19,13 @@ Commands:
   mincut     the minimum cut that limits a maximum flow
   mincost    minimum-cost flow for an amount or for node supplies
 
+Sharing capacity among all demands of a file:
+  fair       weighted max-min fair shares, exact, with tiers and binding arcs
+  throughput the most total flow
+  concurrent the largest common fraction of every amount
+  feasible   can every amount be met? if not, by how much, with a certificate
+  tradeoff   the most total flow keeping each share near its fair share
+
 Run 'apportion <command> --help' for the options and an example of each.
 Exit codes: 0 success, 1 no solution (e.g. infeasible supplies), 2 bad input or usage.
 )";
@@ -36,6 +43,8 @@ int main(int argc, char** argv) {
   if (cmd == "convert") return run_convert(argc, argv);
   if (cmd == "maxflow" || cmd == "mincut") return run_max_flow(argc, argv);
   if (cmd == "mincost") return run_min_cost_flow(argc, argv);
+  if (cmd == "fair" || cmd == "throughput" || cmd == "concurrent" || cmd == "feasible" || cmd == "tradeoff")
+    return run_fair(argc, argv);
   std::cerr << "apportion: unknown command '" << cmd << "'\n" << kUsage;
   return kExitBadInput;
 }

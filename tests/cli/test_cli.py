@@ -43,7 +43,8 @@ def w(name, text):
 
 
 # Help: every subcommand answers --help with an example, exit 0.
-for cmd in ["validate", "convert", "maxflow", "mincut", "mincost"]:
+for cmd in ["validate", "convert", "maxflow", "mincut", "mincost", "fair", "throughput", "concurrent", "feasible",
+            "tradeoff"]:
     r = run(cmd, "--help")
     check(f"{cmd} --help", r.returncode == 0 and "Example" in r.stdout and "demo-networks/" in r.stdout)
 r = run()
@@ -58,6 +59,21 @@ for d in demos:
     check(f"maxflow {os.path.basename(d)}", r.returncode == 0 and "checked: ok" in r.stdout, r.stderr)
     r = run("mincost", d)
     check(f"mincost {os.path.basename(d)}", r.returncode in (0, 1) and "planning aid" in (r.stdout + r.stderr), r.stderr)
+
+# The fair-multiflow commands solve every demo network, and write their files.
+for d in demos:
+    for cmd in ["fair", "throughput", "concurrent", "feasible", "tradeoff"]:
+        r = run(cmd, d)
+        check(f"{cmd} {os.path.basename(d)}", r.returncode == 0 and "checked: ok" in r.stdout, r.stderr)
+prefix = os.path.join(args.work, "fair")
+r = run("fair", demos[0], "--json", prefix + ".json", "--csv", prefix, "--paths")
+fair = json.load(open(prefix + ".json"))
+check("fair JSON has tiers, shares and the check",
+      fair["status"] == "optimal" and fair["tiers"] and fair["check"]["ok"] and
+      all(d["tier"] >= 1 for d in fair["demands"]))
+check("fair CSV tables are written", all(os.path.exists(prefix + s) for s in [".demands.csv", ".arcs.csv", ".paths.csv"]))
+check("fair --hop-limit 0 is a usage error", run("fair", demos[0], "--hop-limit", "0").returncode == 2)
+check("tradeoff --epsilon 2 is a usage error", run("tradeoff", demos[0], "--epsilon", "2").returncode == 2)
 
 # Bad input: exit 2, the message names item and field, and no output file appears.
 bad = w("bad.json", json.dumps({"format": "apportion-network", "version": 1, "nodes": [{"id": "a"}, {"id": "b"}],

@@ -9,6 +9,7 @@ enum class SolveStatus {
   kInfeasible,  // no flow satisfies the constraints (e.g. supplies that cannot be routed)
   kUnbounded,   // the objective has no bound (a negative-cost cycle of infinite capacity)
   kBadInput,    // the input breaks a precondition (unknown node, NaN capacity, ...)
+  kNumericalDifficulty,  // the LP solver could not settle the problem to the tolerances
   kNotSolved,   // no solve has run yet
 };
 
@@ -18,6 +19,7 @@ inline const char* status_name(SolveStatus s) {
     case SolveStatus::kInfeasible: return "infeasible";
     case SolveStatus::kUnbounded: return "unbounded";
     case SolveStatus::kBadInput: return "bad input";
+    case SolveStatus::kNumericalDifficulty: return "numerical difficulty";
     case SolveStatus::kNotSolved: return "not solved";
   }
   return "unknown";

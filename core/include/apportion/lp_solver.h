@@ -1,0 +1,69 @@
+// LpSolver: Apportion's own small interface to a linear-programming solver (HiGHS 1.10,
+// dual simplex), so that the flow models never include solver headers.
+//
+// Model: minimise c^T x subject to row_lower <= A x <= row_upper, col_lower <= x <= col_upper.
+// Duals follow the usual minimisation convention: reduced cost d = c - A^T y; at an optimum
+// d_j >= 0 for a column at its lower bound, y_i <= 0 for a row at its upper bound and
+// y_i >= 0 for a row at its lower bound.
+//
+// Hot start: the solver keeps its basis between solves. Changing bounds, costs or adding
+// columns and solving again starts from the previous basis (HiGHS keeps it valid under these
+// changes), which is what column generation and the fairness rounds rely on.
+// Single-threaded: HiGHS runs with one thread everywhere, so results are the same natively
+// and in WebAssembly, where threads are not available.
+#pragma once
+
+#include <limits>
+#include <memory>
+#include <string>
+#include <vector>
+
+namespace apportion {
+
+enum class LpStatus { kOptimal, kInfeasible, kUnbounded, kFailed };
+
+const char* lp_status_name(LpStatus s);
+
+class LpSolver {
+ public:
+  static constexpr double kInf = std::numeric_limits<double>::infinity();
+
+  LpSolver();
+  ~LpSolver();
+  LpSolver(const LpSolver&) = delete;
+  LpSolver& operator=(const LpSolver&) = delete;
+
+  // Model building; indices count from 0 in the order of addition.
+  int add_column(double cost, double lower, double upper, const std::vector<int>& rows = {},
+                 const std::vector<double>& values = {});
+  int add_row(double lower, double upper, const std::vector<int>& columns = {},
+              const std::vector<double>& values = {});
+  void set_cost(int column, double cost);
+  void set_column_bounds(int column, double lower, double upper);
+  void set_row_bounds(int row, double lower, double upper);
+  void set_coefficient(int row, int column, double value);
+  int column_count() const;
+  int row_count() const;
+
+  // Solves from the current basis. The values below are valid after kOptimal.
+  LpStatus solve();
+  double objective() const;
+  double value(int column) const;
+  double row_value(int row) const;
+  double row_dual(int row) const;
+  double reduced_cost(int column) const;
+
+  long long last_iterations() const { return last_iterations_; }
+  long long total_iterations() const { return total_iterations_; }
+  int solves() const { return solves_; }
+  std::string last_message() const { return message_; }
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
+  long long last_iterations_ = 0, total_iterations_ = 0;
+  int solves_ = 0;
+  std::string message_;
+};
+
+}  // namespace apportion

@@ -1,0 +1,225 @@
+// `apportion fair|throughput|concurrent|feasible|tradeoff`: the fair-multiflow objectives.
+#include <cmath>
+#include <iostream>
+#include <sstream>
+
+#include "apportion/fair_multiflow.h"
+#include "apportion/flow_result_export.h"
+#include "apportion/multiflow_result_export.h"
+#include "apportion/number_text.h"
+#include "commands.h"
+#include "network_loader.h"
+#include "text_table.h"
+
+namespace apportion::cli {
+
+namespace {
+
+const char* kHelp = R"(apportion fair|throughput|concurrent|feasible|tradeoff FILE [options]
+
+Shares the network's capacity among all demands of FILE. Each demand k has an origin, a
+destination, an amount a_k (or "max") and a weight w_k; its share f_k is routed splittably
+over any paths; arcs hold the flow of all demands together.
+
+  fair        weighted max-min fairness, exact: raise f_k = w_k t for all demands together;
+              a demand freezes when it gets its amount, or when it cannot grow without
+              lowering a demand whose f_j / w_j is at or below its own. Each round is a tier.
+              Also solves max throughput, for the price of fairness.
+  throughput  the most total flow, each demand at most its amount
+  concurrent  the largest lambda such that lambda * a_k fits for every demand with an amount
+  feasible    can every amount be met? If not: by how much, with a certificate
+              (dual arc lengths, and an overloaded cut when one is found)
+  tradeoff    the most total flow keeping every demand at >= (1 - epsilon) of its fair share
+
+Options:
+  --epsilon E      tradeoff: the share of fairness given up (default 0.1)
+  --hop-limit H    route each demand over paths of at most H arcs
+  --k-paths K      route each demand over its K shortest paths (fewest arcs) only
+  --paths          print each demand's paths
+  --all-arcs       list arcs without load too
+  --json OUT       the whole result as JSON (core/FORMAT.md)
+  --csv PREFIX     PREFIX.demands.csv, PREFIX.arcs.csv, PREFIX.paths.csv
+  (and the reading options of 'apportion validate --help')
+
+Every result is verified by an independent checker before it is printed.
+
+Example:
+  apportion fair demo-networks/harrowmere-fibre.json --paths --json /tmp/fair.json
+)";
+
+FairObjective objective_of(const std::string& cmd) {
+  if (cmd == "throughput") return FairObjective::kMaxThroughput;
+  if (cmd == "concurrent") return FairObjective::kMaxConcurrent;
+  if (cmd == "feasible") return FairObjective::kFeasibility;
+  if (cmd == "tradeoff") return FairObjective::kTradeoff;
+  return FairObjective::kMaxMinFair;
+}
+
+std::string num(double v) {
+  std::ostringstream s;
+  s.precision(6);
+  s << v;
+  return s.str();
+}
+
+std::string percent(double v) {
+  if (v < 0) return "-";
+  std::ostringstream s;
+  s.precision(1);
+  s << std::fixed << v << "%";
+  return s.str();
+}
+
+std::optional<int> positive_int(const Args& args, const char* name, std::string& error) {
+  auto v = args.get(name);
+  if (!v) return 0;
+  auto x = parse_number(*v);
+  if (!x || *x < 1 || *x != std::floor(*x) || *x > 1e6) {
+    error = std::string("--") + name + " needs a whole number >= 1";
+    return std::nullopt;
+  }
+  return static_cast<int>(*x);
+}
+
+}  // namespace
+
+int run_fair(int argc, char** argv) {
+  const std::string cmd = argv[1];
+  std::set<std::string> valued = kLoaderOptions;
+  valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv"});
+  Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs"});
+  if (args.has("help")) return std::cout << kHelp, kExitOk;
+  if (!args.error.empty() || args.positional.size() != 1) {
+    std::cerr << "apportion " << cmd << ": " << (args.error.empty() ? "expected one FILE" : args.error) << "\n\n" << kHelp;
+    return kExitBadInput;
+  }
+  FairOptions opt;
+  opt.objective = objective_of(cmd);
+  std::string error;
+  auto hop = positive_int(args, "hop-limit", error);
+  auto kp = positive_int(args, "k-paths", error);
+  if (!hop || !kp) {
+    std::cerr << "apportion " << cmd << ": " << error << '\n';
+    return kExitBadInput;
+  }
+  opt.routing.hop_limit = *hop;
+  opt.routing.k_paths = *kp;
+  if (auto e = args.get("epsilon")) {
+    auto v = parse_number(*e);
+    if (!v || *v < 0 || *v > 1) {
+      std::cerr << "apportion " << cmd << ": --epsilon needs a number between 0 and 1\n";
+      return kExitBadInput;
+    }
+    opt.epsilon = *v;
+  }
+  OutputGuard guard;
+  LoadResult loaded = load_network(args.positional[0], args, guard);
+  print_diagnostics(loaded.diagnostics);
+  if (!loaded.ok()) return kExitBadInput;
+  const Network& net = *loaded.network;
+
+  const MultiflowResult r = solve_multiflow(net, opt);
+  if (r.status != SolveStatus::kOptimal) {
+    std::cerr << "apportion " << cmd << ": " << status_name(r.status) << ": " << r.message << '\n';
+    return kExitBadInput;
+  }
+  const std::string unit = net.units.capacity.empty() ? "" : " " + net.units.capacity;
+  std::cout << net.name << " -- " << objective_name(r.objective) << "\n\n";
+  if (r.objective == FairObjective::kFeasibility) {
+    if (r.all_demands_met) {
+      std::cout << "every demand can be met in full (max concurrent flow lambda = " << num(r.lambda) << ")\n\n";
+    } else {
+      std::cout << "NOT every demand can be met: at most " << num(r.lambda * 100) << "% of every amount at once"
+                << " (lambda = " << num(r.lambda) << "); at best " << num(r.shortfall) << unit
+                << " in total stays undelivered.\n";
+      std::cout << "certificate: arc lengths with sum(capacity x length) = " << num(r.certificate_capacity)
+                << " < sum(amount x distance) = " << num(r.certificate_demand) << "\n";
+      TextTable t({"arc", "length"});
+      for (int a = 0; a < net.arc_count(); ++a)
+        if (r.dual_lengths[a] > 0) t.add({net.arcs[a].id, num(r.dual_lengths[a])});
+      t.print(std::cout);
+      if (!r.overloaded_cut_source_side.empty()) {
+        std::string side;
+        for (int v : r.overloaded_cut_source_side) side += (side.empty() ? "" : ", ") + net.nodes[v].id;
+        std::cout << "overloaded cut: {" << side << "} must send " << num(r.overloaded_cut_demand) << unit
+                  << " across capacity " << num(r.overloaded_cut_capacity) << unit << '\n';
+      }
+      std::cout << '\n';
+    }
+  }
+  TextTable dt({"demand", "from", "to", "amount", "weight", "share", "% of amount", "tier", "bound by"});
+  for (std::size_t k = 0; k < r.demands.size(); ++k) {
+    const Demand& d = net.demands[k];
+    const DemandShare& s = r.demands[k];
+    std::string bound;
+    if (s.limited_by_amount) {
+      bound = "its amount";
+    } else {
+      for (int a : s.binding_arcs) bound += (bound.empty() ? "" : " ") + net.arcs[a].id;
+      if (s.binding_arcs_form_cut) bound += " (cut)";
+    }
+    dt.add({d.id, net.nodes[d.origin].id, net.nodes[d.destination].id, d.amount ? num(*d.amount) : "max", num(d.weight),
+            num(s.share), percent(s.percent_of_amount), s.tier ? std::to_string(s.tier) : "-", bound});
+  }
+  dt.print(std::cout);
+  if (!r.tiers.empty() && r.objective != FairObjective::kFeasibility) {
+    std::cout << '\n';
+    TextTable tt({"tier", "level (share/weight)", "demands", "binding arcs"});
+    for (const Tier& t : r.tiers) {
+      std::string ds, as;
+      for (int k : t.demands) ds += (ds.empty() ? "" : " ") + net.demands[k].id;
+      for (int a : t.binding_arcs) as += (as.empty() ? "" : " ") + net.arcs[a].id;
+      tt.add({std::to_string(t.index), num(t.level), ds, as});
+    }
+    tt.print(std::cout);
+  }
+  std::cout << '\n';
+  TextTable at({"arc", "from", "to", "capacity", "load", "utilisation", "shadow price", "tier"});
+  for (int a = 0; a < net.arc_count(); ++a) {
+    const ArcLoad& l = r.arcs[a];
+    if (!args.has("all-arcs") && l.load <= 0) continue;
+    const Arc& arc = net.arcs[a];
+    at.add({arc.id, net.nodes[arc.from].id, net.nodes[arc.to].id, num(arc.enabled ? arc.capacity : 0), num(l.load),
+            percent(100 * l.utilisation), num(l.shadow_price), l.tier ? std::to_string(l.tier) : "-"});
+  }
+  at.print(std::cout);
+  if (args.has("paths")) {
+    std::cout << '\n';
+    TextTable pt({"demand", "amount", "path"});
+    for (std::size_t k = 0; k < r.demands.size(); ++k)
+      for (const PathShare& p : r.demands[k].paths) {
+        std::string nodes;
+        for (int v : p.nodes) nodes += (nodes.empty() ? "" : " > ") + net.nodes[v].id;
+        pt.add({net.demands[k].id, num(p.amount), nodes});
+      }
+    pt.print(std::cout);
+  }
+  std::cout << "\nthroughput " << num(r.throughput) << unit << ", minimum normalised share " << num(r.min_normalised_share)
+            << ", Jain's index " << num(r.jain_index);
+  if (r.lambda >= 0) std::cout << ", lambda " << num(r.lambda);
+  if (r.price_of_fairness >= 0)
+    std::cout << "\nmax throughput " << num(r.max_throughput) << unit << ", price of fairness "
+              << percent(100 * r.price_of_fairness);
+  std::cout << "\nchecked: " << (r.check.ok ? "ok" : "FAILED") << " (largest capacity violation "
+            << num(r.check.max_capacity_violation) << ", conservation " << num(r.check.max_conservation_violation)
+            << ", relative to the largest capacity)\n";
+  std::cout << r.stats.lp_solves << " LP solves, " << r.stats.simplex_iterations << " simplex iterations, "
+            << r.stats.path_columns << " paths generated, " << r.stats.saturation_tests << " saturation tests\n";
+  std::cout << '\n' << kPlanningCaution << '\n';
+
+  if (auto p = args.get("json"); p && !guard.write(*p, multiflow_json(net, r), error)) {
+    std::cerr << "apportion: " << error << '\n';
+    return kExitBadInput;
+  }
+  if (auto p = args.get("csv")) {
+    if (!guard.write(*p + ".demands.csv", multiflow_demands_csv(net, r), error) ||
+        !guard.write(*p + ".arcs.csv", multiflow_arcs_csv(net, r), error) ||
+        !guard.write(*p + ".paths.csv", multiflow_paths_csv(net, r), error)) {
+      std::cerr << "apportion: " << error << '\n';
+      return kExitBadInput;
+    }
+  }
+  return kExitOk;
+}
+
+}  // namespace apportion::cli
