@@ -19,9 +19,8 @@ done
 
 echo "apportion: browser tests"
 (cd tests/browser && npm ci --no-audit --no-fund --silent) || { echo "apportion: npm ci failed" >&2; exit 1; }
-build/native/shell/apportion maxflow demo-networks/harrowmere-fibre.json --json build/demo-maxflow.json >/dev/null
-expected=$(/usr/bin/python3 -c 'import json; print(repr(json.load(open("build/demo-maxflow.json"))["value"]))')
-node tests/browser/smoke.mjs --web build/wasm/web --expect-maxflow "$expected" --artefacts artefacts/browser || status=1
+build/native/shell/apportion fair demo-networks/harrowmere-fibre.json --json build/demo-fair.json >/dev/null
+node tests/browser/smoke.mjs --web build/wasm/web --expect-shares build/demo-fair.json --artefacts artefacts/browser || status=1
 
 if [ $status = 0 ]; then echo "apportion: all tests passed"; else echo "apportion: some tests FAILED" >&2; fi
 exit $status

@@ -1,6 +1,7 @@
-// Apportion in the browser (placeholder page): Dear ImGui over Emscripten's GLFW and WebGL2.
-// It loads the demo network through the same core as the command line, solves a maximum
-// flow, and draws the network. The full app replaces this page.
+// Apportion in the browser (first version): Dear ImGui over Emscripten's GLFW and WebGL2.
+// It loads the demo network through the same core as the command line, solves its weighted
+// max-min fair shares, and draws the network with arcs coloured by utilisation, beside the
+// table of shares. The full app (editing, worker solves, exports) replaces this page.
 //
 // HiDPI: Emscripten 3.1.6's GLFW ignores devicePixelRatio, so each frame sizes the canvas
 // backing store to CSS size x DPR itself and scales the fonts by the DPR.
@@ -15,8 +16,8 @@
 #include <cstdio>
 #include <string>
 
+#include "apportion/fair_multiflow.h"
 #include "apportion/flow_result_export.h"
-#include "apportion/max_flow.h"
 #include "apportion/network_json.h"
 #include "demo_network.h"
 #include "network_view.h"
@@ -26,7 +27,7 @@ namespace {
 struct App {
   GLFWwindow* window = nullptr;
   apportion::LoadResult loaded;
-  apportion::MaxFlowResult flow;
+  apportion::MultiflowResult fair;
   float dpr = 1.0f;
   bool first_frame_reported = false;
 };
@@ -71,17 +72,53 @@ void frame() {
   ImGui::Begin("Apportion", nullptr, ImGuiWindowFlags_NoResize | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoCollapse);
   if (app.loaded.ok()) {
     const apportion::Network& net = *app.loaded.network;
+    const bool solved = app.fair.status == apportion::SolveStatus::kOptimal;
     ImGui::Text("%s", net.name.c_str());
-    ImGui::Text("%d nodes, %d arcs, %d demands", net.node_count(), net.arc_count(), static_cast<int>(net.demands.size()));
-    if (app.flow.status == apportion::SolveStatus::kOptimal && !net.demands.empty()) {
-      const apportion::Demand& d = net.demands[0];
-      ImGui::Text("Maximum flow %s -> %s: %g %s (checked: %s)", net.nodes[d.origin].id.c_str(),
-                  net.nodes[d.destination].id.c_str(), app.flow.value, net.units.capacity.c_str(),
-                  app.flow.check.ok ? "ok" : "FAILED");
-    }
+    ImGui::Text("%d nodes, %d arcs, %d demands -- weighted max-min fair shares (checked: %s)", net.node_count(),
+                net.arc_count(), static_cast<int>(net.demands.size()), solved && app.fair.check.ok ? "ok" : "no");
     ImGui::TextWrapped("%s", apportion::kPlanningCaution);
     ImGui::Separator();
-    apportion::web::draw_network(net, app.flow.status == apportion::SolveStatus::kOptimal ? &app.flow : nullptr, dpr);
+    const float table_w = 520.0f * dpr;
+    ImGui::BeginChild("shares", ImVec2(table_w, 0), true);
+    if (solved) {
+      ImGui::Text("Throughput %.6g %s, minimum normalised share %.6g, Jain's index %.4f", app.fair.throughput,
+                  net.units.capacity.c_str(), app.fair.min_normalised_share, app.fair.jain_index);
+      if (app.fair.price_of_fairness >= 0)
+        ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g", 100 * app.fair.price_of_fairness,
+                    app.fair.max_throughput);
+      if (ImGui::BeginTable("demands", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
+        ImGui::TableSetupColumn("Demand");
+        ImGui::TableSetupColumn("Share");
+        ImGui::TableSetupColumn("% of amount");
+        ImGui::TableSetupColumn("Tier");
+        ImGui::TableSetupColumn("Bound by");
+        ImGui::TableHeadersRow();
+        for (std::size_t k = 0; k < net.demands.size(); ++k) {
+          const apportion::DemandShare& d = app.fair.demands[k];
+          ImGui::TableNextRow();
+          ImGui::TableNextColumn();
+          ImGui::TextUnformatted(net.demands[k].id.c_str());
+          ImGui::TableNextColumn();
+          ImGui::Text("%.6g", d.share);
+          ImGui::TableNextColumn();
+          if (d.percent_of_amount >= 0) ImGui::Text("%.1f%%", d.percent_of_amount); else ImGui::TextUnformatted("-");
+          ImGui::TableNextColumn();
+          ImGui::Text("%d", d.tier);
+          ImGui::TableNextColumn();
+          std::string bound = d.limited_by_amount ? "its amount" : "";
+          for (int a : d.binding_arcs) bound += (bound.empty() ? "" : " ") + net.arcs[a].id;
+          ImGui::TextUnformatted(bound.c_str());
+        }
+        ImGui::EndTable();
+      }
+    } else {
+      ImGui::TextWrapped("Not solved: %s", app.fair.message.c_str());
+    }
+    ImGui::EndChild();
+    ImGui::SameLine();
+    ImGui::BeginChild("canvas");
+    apportion::web::draw_network(net, solved ? &app.fair : nullptr, dpr);
+    ImGui::EndChild();
   } else {
     for (const auto& d : app.loaded.diagnostics.items) ImGui::TextWrapped("%s", d.to_string().c_str());
   }
@@ -96,8 +133,15 @@ void frame() {
   if (!app.first_frame_reported) {
     // A machine-readable line for the browser tests.
     app.first_frame_reported = true;
-    std::printf("apportion:first-frame {\"network\":\"%s\",\"maxflow\":%.17g,\"dpr\":%g}\n",
-                app.loaded.ok() ? app.loaded.network->name.c_str() : "", app.flow.value, dpr);
+    std::string shares;
+    for (const auto& d : app.fair.demands) {
+      char buf[32];
+      std::snprintf(buf, sizeof buf, "%.17g", d.share);
+      shares += (shares.empty() ? "" : ",") + std::string(buf);
+    }
+    std::printf("apportion:first-frame {\"network\":\"%s\",\"status\":\"%s\",\"shares\":[%s],\"dpr\":%g}\n",
+                app.loaded.ok() ? app.loaded.network->name.c_str() : "", apportion::status_name(app.fair.status),
+                shares.c_str(), dpr);
     EM_ASM(Module.setStatus(''));
   }
 }
@@ -106,11 +150,7 @@ void frame() {
 
 int main() {
   app.loaded = apportion::read_network_json(kDemoNetworkJson);
-  if (app.loaded.ok() && !app.loaded.network->demands.empty()) {
-    const apportion::Network& net = *app.loaded.network;
-    app.flow = apportion::max_flow(apportion::FlowGraph::from_network(net), {net.demands[0].origin},
-                                   {net.demands[0].destination});
-  }
+  if (app.loaded.ok()) app.fair = apportion::solve_multiflow(*app.loaded.network, apportion::FairOptions{});
   if (!glfwInit()) {
     std::printf("apportion:error GLFW could not start\n");
     return 1;

@@ -36,7 +36,9 @@ class Engine {
         g_(FlowGraph::from_network(net)),
         specs_(make_specs(net)),
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
-        tol_(Tolerance::for_scale(std::max(net.magnitude(), 1.0), 1e-9)) {}
+        tol_(Tolerance::for_scale(std::max(net.magnitude(), 1.0), 1e-9)) {
+    master_.lp().set_hot_start(opt.hot_start);
+  }
 
   MultiflowResult run();
 

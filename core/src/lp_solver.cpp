@@ -52,6 +52,7 @@ int LpSolver::row_count() const { return static_cast<int>(impl_->highs.getNumRow
 
 LpStatus LpSolver::solve() {
   Highs& h = impl_->highs;
+  if (!hot_start_) h.clearSolver();
   const HighsStatus run = h.run();
   ++solves_;
   last_iterations_ = h.getInfo().simplex_iteration_count;

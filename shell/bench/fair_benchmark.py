@@ -68,7 +68,7 @@ def baseline_child(path):
 
 def run_apportion(cmd, path):
     out = subprocess.run(cmd + [path], capture_output=True, text=True, check=True).stdout.split()
-    return float(out[1]), int(out[2]), [float(x) for x in out[4:]]
+    return float(out[1]), (int(out[2]), int(out[3]), int(out[4])), [float(x) for x in out[5:]]
 
 
 def main():
@@ -85,8 +85,8 @@ def main():
     if a.quick:
         sizes = sizes[:2]
     work = tempfile.mkdtemp(prefix="apportion-fair-bench-")
-    print("| nodes | arcs | demands | tiers | Apportion ms | LP solves | baseline ms | speed-up | WASM ms | WASM/native | largest share difference |")
-    print("|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
+    print("| nodes | arcs | demands | tiers | Apportion ms | LP solves | simplex iterations (hot / cold start) | baseline ms | speed-up | WASM ms | WASM/native | largest share difference |")
+    print("|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
     for n, deg, k in sizes:
         inst = instance(n, deg, k, seed=n * 7919 + k)
         path = os.path.join(work, f"g{n}-{k}.json")
@@ -110,7 +110,7 @@ def main():
         base = f"{base_ms:.0f}" if base_ms is not None else f"> {a.budget * 1000:.0f}"
         speed = f"{base_ms / ms:.1f}x" if base_ms is not None else f"> {a.budget * 1000 / ms:.0f}x"
         d = f"{diff:.1e}" if diff is not None else f"(WASM vs native {wdiff:.1e})"
-        print(f"| {n} | {len(inst['arcs'])} | {k} | {tiers} | {ms:.0f} | {solves} | {base} | {speed} | "
+        print(f"| {n} | {len(inst['arcs'])} | {k} | {tiers} | {ms:.0f} | {solves[0]} | {solves[1]} / {solves[2]} | {base} | {speed} | "
               f"{wasm_ms:.0f} | {wasm_ms / ms:.2f} | {d} |", flush=True)
 
 

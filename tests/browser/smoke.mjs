@@ -1,10 +1,10 @@
 // Browser smoke test of the Apportion page, served over http and as the single file from
 // file://, in Debian's chromium (headless, SwiftShader WebGL2) driven by playwright-core.
 // The page reports its first frame on the console ("apportion:first-frame {...}"); the test
-// compares the maximum flow shown with the command line's for the same demo network, and
+// compares the fair shares shown with the command line's for the same demo network, and
 // keeps a screenshot of each page in the artefacts folder.
 //
-// usage: node smoke.mjs --web DIR --expect-maxflow X --artefacts DIR
+// usage: node smoke.mjs --web DIR --expect-shares FILE.json --artefacts DIR
 import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -13,7 +13,7 @@ import { chromium } from 'playwright-core';
 
 const arg = (name) => { const i = process.argv.indexOf(name); return i > 0 ? process.argv[i + 1] : undefined; };
 const webDir = path.resolve(arg('--web'));
-const expected = Number(arg('--expect-maxflow'));
+const expected = JSON.parse(fs.readFileSync(arg('--expect-shares'), 'utf8')).demands.map((d) => d.share);
 const artefacts = path.resolve(arg('--artefacts'));
 fs.mkdirSync(artefacts, { recursive: true });
 
@@ -55,7 +55,10 @@ async function open(name, url) {
     if (state) {
       console.log(`      ${name}: first frame after ${Date.now() - started} ms`);
       check(`${name}: demo network loaded`, state.network.length > 0, JSON.stringify(state));
-      check(`${name}: maximum flow ${state.maxflow} equals the command line's ${expected}`, state.maxflow === expected);
+      check(`${name}: fair shares solved`, state.status === 'optimal', state.status);
+      const close = state.shares.length === expected.length &&
+        state.shares.every((x, i) => Math.abs(x - expected[i]) <= 1e-6 * Math.max(1, Math.abs(expected[i])));
+      check(`${name}: shares [${state.shares}] equal the command line's [${expected}]`, close);
       check(`${name}: sharp on HiDPI (device pixel ratio ${state.dpr} used)`, state.dpr === 2);
     }
     await page.waitForTimeout(300);

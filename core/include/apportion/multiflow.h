@@ -42,6 +42,7 @@ struct FairOptions {
   RoutingOptions routing;
   double epsilon = 0.1;     // kTradeoff: each demand keeps at least (1 - epsilon) of its fair share
   bool compare_throughput = true;  // kMaxMinFair: also solve max throughput for the price of fairness
+  bool hot_start = true;    // false only to measure what restarting from the last basis saves
 };
 
 struct PathShare {
