@@ -19,8 +19,12 @@ done
 
 echo "apportion: browser tests"
 (cd tests/browser && npm ci --no-audit --no-fund --silent) || { echo "apportion: npm ci failed" >&2; exit 1; }
-build/native/shell/apportion fair demo-networks/harrowmere-fibre.json --json build/demo-fair.json >/dev/null
-node tests/browser/smoke.mjs --web build/wasm/web --expect-shares build/demo-fair.json --artefacts artefacts/browser || status=1
+mkdir -p build/expected
+for demo in demo-networks/*.json; do
+  name=$(basename "$demo" .json)
+  build/native/shell/apportion fair "$demo" --json "build/expected/$name.fair.json" >/dev/null
+done
+node tests/browser/app.mjs --web build/wasm/web --root . --expected build/expected --artefacts artefacts/browser || status=1
 
 if [ $status = 0 ]; then echo "apportion: all tests passed"; else echo "apportion: some tests FAILED" >&2; fi
 exit $status

@@ -1,10 +1,14 @@
 // Apportion in the browser (first version): Dear ImGui over Emscripten's GLFW and WebGL2.
-// It loads the demo network through the same core as the command line, solves its weighted
-// max-min fair shares, and draws the network with arcs coloured by utilisation, beside the
-// table of shares. The full app (editing, worker solves, exports) replaces this page.
+// The page holds one network document and its result; both are the single source of truth
+// and every frame is drawn from them. It opens the demo network (or the network of a share
+// link, or the autosaved one), solves it with the chosen rule through the same core as the
+// command line, and exports results and the network, all inside the browser.
 //
 // HiDPI: Emscripten 3.1.6's GLFW ignores devicePixelRatio, so each frame sizes the canvas
 // backing store to CSS size x DPR itself and scales the fonts by the DPR.
+//
+// Test hook: machine-readable console lines "apportion:<event> {json}" and the exported
+// apportion_test_action(), which runs the same code as the buttons.
 #include <GLFW/glfw3.h>
 #include <emscripten.h>
 #include <emscripten/html5.h>
@@ -14,25 +18,95 @@
 
 #include <cmath>
 #include <cstdio>
+#include <nlohmann/json.hpp>
 #include <string>
+#include <vector>
 
 #include "apportion/fair_multiflow.h"
 #include "apportion/flow_result_export.h"
+#include "apportion/multiflow_result_export.h"
 #include "apportion/network_json.h"
+#include "browser_bridge.h"
 #include "demo_network.h"
+#include "file_payload.h"
 #include "network_view.h"
 
 namespace {
 
+using apportion::FairObjective;
+
+constexpr FairObjective kObjectives[] = {FairObjective::kMaxMinFair, FairObjective::kMaxConcurrent,
+                                         FairObjective::kMaxThroughput, FairObjective::kTradeoff,
+                                         FairObjective::kFeasibility};
+constexpr const char* kObjectiveLabels[] = {"Max-min fair shares (weighted)", "Max concurrent flow",
+                                            "Max throughput", "Throughput with a fairness floor",
+                                            "Can every demand be met?"};
+
 struct App {
   GLFWwindow* window = nullptr;
-  apportion::LoadResult loaded;
-  apportion::MultiflowResult fair;
+  apportion::Network doc;        // the document
+  std::string doc_name;          // where it came from
+  apportion::FairOptions options;
+  int objective = 0;             // index into kObjectives
+  apportion::MultiflowResult result;
+  std::vector<std::string> messages;  // from the last failed open, shown until dismissed
   float dpr = 1.0f;
   bool first_frame_reported = false;
 };
 
 App app;
+
+std::string state_json(const char* event) {
+  nlohmann::json s = {{"event", event}, {"network", app.doc.name}, {"source", app.doc_name},
+                      {"objective", apportion::objective_name(app.result.objective)},
+                      {"status", apportion::status_name(app.result.status)}, {"messages", app.messages}};
+  nlohmann::json shares = nlohmann::json::array();
+  for (const auto& d : app.result.demands) shares.push_back(d.share);
+  s["shares"] = shares;
+  s["dpr"] = app.dpr;
+  return s.dump();
+}
+
+void report(const char* event) { std::printf("apportion:%s %s\n", event, state_json(event).c_str()); }
+
+void solve() {
+  app.options.objective = kObjectives[app.objective];
+  app.result = apportion::solve_multiflow(app.doc, app.options);
+  report("solved");
+}
+
+void set_document(apportion::Network net, const std::string& name, bool save) {
+  app.doc = std::move(net);
+  app.doc_name = name;
+  app.messages.clear();
+  if (save) apportion::web::autosave(apportion::write_network_json(app.doc));
+  solve();
+}
+
+std::string file_stem() {
+  std::string s = app.doc.name.empty() ? "network" : app.doc.name;
+  for (char& c : s)
+    if (!std::isalnum(static_cast<unsigned char>(c))) c = '-';
+  return s;
+}
+
+// Every button's action, by name: the UI and the test hook share this code.
+void action(const std::string& what) {
+  using namespace apportion;
+  const bool solved = app.result.status == SolveStatus::kOptimal;
+  if (what == "open") web::open_file_picker();
+  else if (what == "save-network") web::download_text(file_stem() + ".json", "application/json", write_network_json(app.doc));
+  else if (what == "share-link") web::publish_share_link(write_network_json(app.doc));
+  else if (what == "solve") solve();
+  else if (what == "export-demands-csv" && solved)
+    web::download_text(file_stem() + ".demands.csv", "text/csv", multiflow_demands_csv(app.doc, app.result));
+  else if (what == "export-arcs-csv" && solved)
+    web::download_text(file_stem() + ".arcs.csv", "text/csv", multiflow_arcs_csv(app.doc, app.result));
+  else if (what == "export-paths-csv" && solved)
+    web::download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(app.doc, app.result));
+  else if (what == "export-result-json" && solved)
+    web::download_text(file_stem() + ".result.json", "application/json", multiflow_json(app.doc, app.result));
+}
 
 void apply_scale(float dpr) {
   ImGuiIO& io = ImGui::GetIO();
@@ -47,6 +121,91 @@ void apply_scale(float dpr) {
   ImGui::StyleColorsDark(&style);
   style.ScaleAllSizes(dpr);
   ImGui::GetStyle() = style;
+}
+
+void draw_toolbar() {
+  const bool solved = app.result.status == apportion::SolveStatus::kOptimal;
+  if (ImGui::Button("Open network...")) action("open");
+  ImGui::SameLine();
+  if (ImGui::Button("Save network")) action("save-network");
+  ImGui::SameLine();
+  if (ImGui::Button("Copy share link")) action("share-link");
+  ImGui::SameLine();
+  ImGui::BeginDisabled(!solved);
+  if (ImGui::Button("Shares CSV")) action("export-demands-csv");
+  ImGui::SameLine();
+  if (ImGui::Button("Arcs CSV")) action("export-arcs-csv");
+  ImGui::SameLine();
+  if (ImGui::Button("Paths CSV")) action("export-paths-csv");
+  ImGui::SameLine();
+  if (ImGui::Button("Result JSON")) action("export-result-json");
+  ImGui::EndDisabled();
+
+  ImGui::SetNextItemWidth(260 * app.dpr);
+  if (ImGui::Combo("Rule", &app.objective, kObjectiveLabels, IM_ARRAYSIZE(kObjectiveLabels))) solve();
+  ImGui::SameLine();
+  if (kObjectives[app.objective] == FairObjective::kTradeoff) {
+    float eps = static_cast<float>(app.options.epsilon);
+    ImGui::SetNextItemWidth(140 * app.dpr);
+    if (ImGui::SliderFloat("fairness given up", &eps, 0.0f, 1.0f, "%.2f")) app.options.epsilon = eps;
+    if (ImGui::IsItemDeactivatedAfterEdit()) solve();
+    ImGui::SameLine();
+  }
+  ImGui::SetNextItemWidth(90 * app.dpr);
+  if (ImGui::InputInt("hop limit (0: none)", &app.options.routing.hop_limit)) {
+    app.options.routing.hop_limit = std::max(0, app.options.routing.hop_limit);
+    solve();
+  }
+}
+
+void draw_result_panel() {
+  const apportion::Network& net = app.doc;
+  const apportion::MultiflowResult& r = app.result;
+  if (r.status != apportion::SolveStatus::kOptimal) {
+    ImGui::TextWrapped("Not solved (%s): %s", apportion::status_name(r.status), r.message.c_str());
+    return;
+  }
+  const char* unit = net.units.capacity.c_str();
+  if (r.objective == FairObjective::kFeasibility) {
+    if (r.all_demands_met)
+      ImGui::TextWrapped("Every demand can be met in full (lambda = %.4g).", r.lambda);
+    else
+      ImGui::TextWrapped("Not every demand can be met: at most %.1f%% of every amount at once; at best %.6g %s stay "
+                         "undelivered.", 100 * r.lambda, r.shortfall, unit);
+  }
+  ImGui::Text("Throughput %.6g %s, minimum normalised share %.6g, Jain's index %.4f", r.throughput, unit,
+              r.min_normalised_share, r.jain_index);
+  if (r.lambda >= 0) ImGui::Text("Max concurrent flow lambda %.6g", r.lambda);
+  if (r.price_of_fairness >= 0)
+    ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g", 100 * r.price_of_fairness, r.max_throughput);
+  ImGui::Text("Checked: %s", r.check.ok ? "ok" : "FAILED");
+  if (ImGui::BeginTable("demands", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_Resizable)) {
+    ImGui::TableSetupColumn("Demand");
+    ImGui::TableSetupColumn("Share");
+    ImGui::TableSetupColumn("% of amount");
+    ImGui::TableSetupColumn("Tier");
+    ImGui::TableSetupColumn("Bound by");
+    ImGui::TableHeadersRow();
+    for (std::size_t k = 0; k < net.demands.size() && k < r.demands.size(); ++k) {
+      const apportion::DemandShare& d = r.demands[k];
+      ImGui::TableNextRow();
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(net.demands[k].id.c_str());
+      if (!net.demands[k].label.empty() && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", net.demands[k].label.c_str());
+      ImGui::TableNextColumn();
+      ImGui::Text("%.6g", d.share);
+      ImGui::TableNextColumn();
+      if (d.percent_of_amount >= 0) ImGui::Text("%.1f%%", d.percent_of_amount); else ImGui::TextUnformatted("-");
+      ImGui::TableNextColumn();
+      if (d.tier) ImGui::Text("%d", d.tier); else ImGui::TextUnformatted("-");
+      ImGui::TableNextColumn();
+      std::string bound = d.limited_by_amount ? "its amount" : "";
+      for (int a : d.binding_arcs) bound += (bound.empty() ? "" : " ") + net.arcs[a].id;
+      if (d.binding_arcs_form_cut) bound += " (cut)";
+      ImGui::TextUnformatted(bound.c_str());
+    }
+    ImGui::EndTable();
+  }
 }
 
 void frame() {
@@ -70,58 +229,26 @@ void frame() {
   ImGui::SetNextWindowPos(ImVec2(0, 0));
   ImGui::SetNextWindowSize(io.DisplaySize);
   ImGui::Begin("Apportion", nullptr, ImGuiWindowFlags_NoResize | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoCollapse);
-  if (app.loaded.ok()) {
-    const apportion::Network& net = *app.loaded.network;
-    const bool solved = app.fair.status == apportion::SolveStatus::kOptimal;
-    ImGui::Text("%s", net.name.c_str());
-    ImGui::Text("%d nodes, %d arcs, %d demands -- weighted max-min fair shares (checked: %s)", net.node_count(),
-                net.arc_count(), static_cast<int>(net.demands.size()), solved && app.fair.check.ok ? "ok" : "no");
-    ImGui::TextWrapped("%s", apportion::kPlanningCaution);
-    ImGui::Separator();
-    const float table_w = 520.0f * dpr;
-    ImGui::BeginChild("shares", ImVec2(table_w, 0), true);
-    if (solved) {
-      ImGui::Text("Throughput %.6g %s, minimum normalised share %.6g, Jain's index %.4f", app.fair.throughput,
-                  net.units.capacity.c_str(), app.fair.min_normalised_share, app.fair.jain_index);
-      if (app.fair.price_of_fairness >= 0)
-        ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g", 100 * app.fair.price_of_fairness,
-                    app.fair.max_throughput);
-      if (ImGui::BeginTable("demands", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
-        ImGui::TableSetupColumn("Demand");
-        ImGui::TableSetupColumn("Share");
-        ImGui::TableSetupColumn("% of amount");
-        ImGui::TableSetupColumn("Tier");
-        ImGui::TableSetupColumn("Bound by");
-        ImGui::TableHeadersRow();
-        for (std::size_t k = 0; k < net.demands.size(); ++k) {
-          const apportion::DemandShare& d = app.fair.demands[k];
-          ImGui::TableNextRow();
-          ImGui::TableNextColumn();
-          ImGui::TextUnformatted(net.demands[k].id.c_str());
-          ImGui::TableNextColumn();
-          ImGui::Text("%.6g", d.share);
-          ImGui::TableNextColumn();
-          if (d.percent_of_amount >= 0) ImGui::Text("%.1f%%", d.percent_of_amount); else ImGui::TextUnformatted("-");
-          ImGui::TableNextColumn();
-          ImGui::Text("%d", d.tier);
-          ImGui::TableNextColumn();
-          std::string bound = d.limited_by_amount ? "its amount" : "";
-          for (int a : d.binding_arcs) bound += (bound.empty() ? "" : " ") + net.arcs[a].id;
-          ImGui::TextUnformatted(bound.c_str());
-        }
-        ImGui::EndTable();
-      }
-    } else {
-      ImGui::TextWrapped("Not solved: %s", app.fair.message.c_str());
-    }
-    ImGui::EndChild();
-    ImGui::SameLine();
-    ImGui::BeginChild("canvas");
-    apportion::web::draw_network(net, solved ? &app.fair : nullptr, dpr);
-    ImGui::EndChild();
-  } else {
-    for (const auto& d : app.loaded.diagnostics.items) ImGui::TextWrapped("%s", d.to_string().c_str());
+  draw_toolbar();
+  ImGui::Text("%s  (%s; %d nodes, %d arcs, %d demands)", app.doc.name.c_str(), app.doc_name.c_str(),
+              app.doc.node_count(), app.doc.arc_count(), static_cast<int>(app.doc.demands.size()));
+  ImGui::TextWrapped("%s", apportion::kPlanningCaution);
+  if (!app.messages.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::TextUnformatted("The file was not opened; the current network is unchanged:");
+    for (const std::string& m : app.messages) ImGui::BulletText("%s", m.c_str());
+    ImGui::PopStyleColor();
+    if (ImGui::SmallButton("Dismiss")) app.messages.clear();
   }
+  ImGui::Separator();
+  ImGui::BeginChild("shares", ImVec2(540.0f * dpr, 0), true);
+  draw_result_panel();
+  ImGui::EndChild();
+  ImGui::SameLine();
+  ImGui::BeginChild("canvas");
+  const bool solved = app.result.status == apportion::SolveStatus::kOptimal;
+  apportion::web::draw_network(app.doc, solved ? &app.result : nullptr, dpr);
+  ImGui::EndChild();
   ImGui::End();
 
   ImGui::Render();
@@ -131,26 +258,39 @@ void frame() {
   ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
 
   if (!app.first_frame_reported) {
-    // A machine-readable line for the browser tests.
     app.first_frame_reported = true;
-    std::string shares;
-    for (const auto& d : app.fair.demands) {
-      char buf[32];
-      std::snprintf(buf, sizeof buf, "%.17g", d.share);
-      shares += (shares.empty() ? "" : ",") + std::string(buf);
-    }
-    std::printf("apportion:first-frame {\"network\":\"%s\",\"status\":\"%s\",\"shares\":[%s],\"dpr\":%g}\n",
-                app.loaded.ok() ? app.loaded.network->name.c_str() : "", apportion::status_name(app.fair.status),
-                shares.c_str(), dpr);
+    report("first-frame");
     EM_ASM(Module.setStatus(''));
   }
 }
 
 }  // namespace
 
+extern "C" {
+
+// Files from the browser (picker, share link, autosave), as JSON; see file_payload.h.
+EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
+  apportion::web::Payload p = apportion::web::read_payload(payload);
+  if (!p.loaded.ok()) {
+    app.messages.clear();
+    for (const auto& d : p.loaded.diagnostics.items)
+      if (d.severity == apportion::Severity::kError) app.messages.push_back(d.to_string());
+    report("open-failed");
+    return;
+  }
+  const std::string label = p.source == "link" ? "from a share link" : p.source == "autosave" ? "autosaved" : p.name;
+  set_document(std::move(*p.loaded.network), label, /*save=*/p.source != "autosave");
+  report("opened");
+}
+
+// The test hook: runs a button's action by name.
+EMSCRIPTEN_KEEPALIVE void apportion_test_action(const char* what) { action(what); }
+
+}  // extern "C"
+
 int main() {
-  app.loaded = apportion::read_network_json(kDemoNetworkJson);
-  if (app.loaded.ok()) app.fair = apportion::solve_multiflow(*app.loaded.network, apportion::FairOptions{});
+  apportion::LoadResult demo = apportion::read_network_json(kDemoNetworkJson);
+  if (demo.ok()) set_document(std::move(*demo.network), "demo network", /*save=*/false);
   if (!glfwInit()) {
     std::printf("apportion:error GLFW could not start\n");
     return 1;
@@ -170,6 +310,7 @@ int main() {
   ImGui_ImplGlfw_InitForOpenGL(app.window, true);
   ImGui_ImplOpenGL3_Init("#version 300 es");
   app.dpr = 0;  // forces apply_scale on the first frame
+  apportion::web::load_startup_network();
   emscripten_set_main_loop(frame, 0, false);
   return 0;
 }

@@ -82,7 +82,7 @@ class ArcModel:
             if a.get("shared_two_way"):
                 self.lanes.append((v, u, i))
         self.dem = [(int(d["origin"][1:]), int(d["destination"][1:]),
-                     math.inf if d["amount"] == "max" else float(d["amount"]), float(d["weight"]))
+                     math.inf if d.get("amount", "max") == "max" else float(d["amount"]), float(d.get("weight", 1)))
                     for d in inst["demands"]]
         K, L = len(self.dem), len(self.lanes)
         self.K, self.L = K, L
