@@ -10,6 +10,8 @@ namespace apportion::web {
 
 // Offers `text` as a file download (a Blob and an <a download> link; works from file://).
 void download_text(const std::string& filename, const std::string& mime, const std::string& text);
+// Offers the canvas as a PNG download; call right after drawing a frame.
+void download_canvas_png(const std::string& filename);
 // Opens the browser's file picker; chosen files arrive through apportion_receive_files().
 void open_file_picker();
 // Compresses the network JSON (deflate-raw, base64url) into the URL fragment "#n=...",

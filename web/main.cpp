@@ -26,6 +26,7 @@
 #include "apportion/flow_result_export.h"
 #include "apportion/multiflow_result_export.h"
 #include "apportion/network_json.h"
+#include "apportion/network_svg.h"
 #include "browser_bridge.h"
 #include "demo_network.h"
 #include "file_payload.h"
@@ -50,6 +51,8 @@ struct App {
   int objective = 0;             // index into kObjectives
   apportion::MultiflowResult result;
   std::vector<std::string> messages;  // from the last failed open, shown until dismissed
+  apportion::web::ViewState view;     // how the user looks at the network (not the document)
+  bool png_requested = false;
   float dpr = 1.0f;
   bool first_frame_reported = false;
 };
@@ -79,6 +82,7 @@ void set_document(apportion::Network net, const std::string& name, bool save) {
   app.doc = std::move(net);
   app.doc_name = name;
   app.messages.clear();
+  app.view = apportion::web::ViewState{};
   if (save) apportion::web::autosave(apportion::write_network_json(app.doc));
   solve();
 }
@@ -104,6 +108,9 @@ void action(const std::string& what) {
     web::download_text(file_stem() + ".arcs.csv", "text/csv", multiflow_arcs_csv(app.doc, app.result));
   else if (what == "export-paths-csv" && solved)
     web::download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(app.doc, app.result));
+  else if (what == "export-svg")
+    web::download_text(file_stem() + ".svg", "image/svg+xml", network_svg(app.doc, solved ? &app.result : nullptr));
+  else if (what == "export-png") app.png_requested = true;
   else if (what == "export-result-json" && solved)
     web::download_text(file_stem() + ".result.json", "application/json", multiflow_json(app.doc, app.result));
 }
@@ -140,6 +147,12 @@ void draw_toolbar() {
   ImGui::SameLine();
   if (ImGui::Button("Result JSON")) action("export-result-json");
   ImGui::EndDisabled();
+  ImGui::SameLine();
+  if (ImGui::Button("Picture SVG")) action("export-svg");
+  ImGui::SameLine();
+  if (ImGui::Button("Picture PNG")) action("export-png");
+  ImGui::SameLine();
+  ImGui::Checkbox("Animate", &app.view.animate);
 
   ImGui::SetNextItemWidth(260 * app.dpr);
   if (ImGui::Combo("Rule", &app.objective, kObjectiveLabels, IM_ARRAYSIZE(kObjectiveLabels))) solve();
@@ -190,7 +203,10 @@ void draw_result_panel() {
       const apportion::DemandShare& d = r.demands[k];
       ImGui::TableNextRow();
       ImGui::TableNextColumn();
-      ImGui::TextUnformatted(net.demands[k].id.c_str());
+      // Selecting a demand highlights its paths and binding arcs on the canvas.
+      const bool selected = app.view.selected_demand == static_cast<int>(k);
+      if (ImGui::Selectable(net.demands[k].id.c_str(), selected, ImGuiSelectableFlags_SpanAllColumns))
+        app.view.selected_demand = selected ? -1 : static_cast<int>(k);
       if (!net.demands[k].label.empty() && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", net.demands[k].label.c_str());
       ImGui::TableNextColumn();
       ImGui::Text("%.6g", d.share);
@@ -247,7 +263,7 @@ void frame() {
   ImGui::SameLine();
   ImGui::BeginChild("canvas");
   const bool solved = app.result.status == apportion::SolveStatus::kOptimal;
-  apportion::web::draw_network(app.doc, solved ? &app.result : nullptr, dpr);
+  apportion::web::draw_network(app.doc, solved ? &app.result : nullptr, app.view, dpr);
   ImGui::EndChild();
   ImGui::End();
 
@@ -256,6 +272,10 @@ void frame() {
   glClearColor(0.11f, 0.12f, 0.15f, 1.0f);
   glClear(GL_COLOR_BUFFER_BIT);
   ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
+  if (app.png_requested) {  // read the canvas now, while this frame's pixels are in it
+    app.png_requested = false;
+    apportion::web::download_canvas_png(file_stem() + ".png");
+  }
 
   if (!app.first_frame_reported) {
     app.first_frame_reported = true;

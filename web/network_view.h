@@ -1,6 +1,10 @@
-// The network canvas of the placeholder page: nodes and arcs of a document drawn with
-// ImGui's draw lists, arcs coloured by their utilisation, with a legend. Immediate mode: it
-// draws from the document and the result each frame and keeps no copy of either.
+// The network canvas: nodes and arcs of the document drawn with ImGui's draw lists. Arc
+// width follows capacity and colour follows utilisation (legend included); marks move along
+// each loaded arc in the direction of its flow, faster the fuller it is. Selecting a demand
+// draws its paths in their own colour and its binding arcs outlined. Hovering an arc shows
+// capacity, load, load per demand and shadow price. Drag to pan, wheel to zoom.
+// Immediate mode: drawn from the document and the result each frame; ViewState holds only
+// how the user looks at them.
 #pragma once
 
 #include "apportion/multiflow.h"
@@ -8,6 +12,13 @@
 
 namespace apportion::web {
 
-void draw_network(const Network& net, const MultiflowResult* result, float ui_scale);
+struct ViewState {
+  float pan_x = 0, pan_y = 0;  // in device pixels
+  float zoom = 1;
+  int selected_demand = -1;    // -1: none
+  bool animate = true;
+};
+
+void draw_network(const Network& net, const MultiflowResult* result, ViewState& view, float ui_scale);
 
 }  // namespace apportion::web

@@ -107,6 +107,20 @@ try {
     check(`CSV export: ${download.suggestedFilename()} holds the command line's shares`, sameShares(csvShares, harrowmere),
           JSON.stringify(csvShares));
 
+    // 2b. The picture as SVG (with legend and caution) and as PNG.
+    const svgDl = b.page.waitForEvent('download');
+    await b.act('export-svg');
+    const svg = fs.readFileSync(await (await svgDl).path(), 'utf8');
+    check('SVG export: a picture with a legend and the caution', svg.startsWith('<svg') &&
+          svg.includes('arc utilisation') && svg.includes('planning aid'));
+    const pngDl = b.page.waitForEvent('download');
+    await b.act('export-png');
+    const png = fs.readFileSync(await (await pngDl).path());
+    check('PNG export: a PNG image of the canvas', png.length > 1000 &&
+          png.subarray(1, 4).toString() === 'PNG', `${png.length} bytes`);
+    fs.writeFileSync(path.join(artefacts, 'exported.png'), png);
+    fs.writeFileSync(path.join(artefacts, 'exported.svg'), svg);
+
     // 3. Open another network through the file picker.
     const chooser = b.page.waitForEvent('filechooser');
     await b.act('open');
