@@ -76,14 +76,17 @@ def main():
     ap.add_argument("--native", required=True)
     ap.add_argument("--wasm", required=True)
     ap.add_argument("--budget", type=float, default=300, help="seconds for each baseline run")
-    ap.add_argument("--quick", action="store_true", help="small sizes only")
+    ap.add_argument("--quick", action="store_true", help="the smallest size only")
+    ap.add_argument("--large", action="store_true", help="also 1,000, 2,000 and 5,000 demands (slow: tens of minutes)")
     ap.add_argument("--baseline-child")
     a = ap.parse_args()
     if a.baseline_child:
         return baseline_child(a.baseline_child)
-    sizes = [(50, 2, 100), (100, 2, 300), (100, 3, 1000), (200, 2, 2000), (200, 2, 5000)]
+    sizes = [(50, 2, 100), (100, 2, 300)]
+    if a.large:
+        sizes += [(100, 3, 1000), (200, 2, 2000), (200, 2, 5000)]
     if a.quick:
-        sizes = sizes[:2]
+        sizes = sizes[:1]
     work = tempfile.mkdtemp(prefix="apportion-fair-bench-")
     print("| nodes | arcs | demands | tiers | Apportion ms | LP solves | simplex iterations (hot / cold start) | baseline ms | speed-up | WASM ms | WASM/native | largest share difference |")
     print("|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
