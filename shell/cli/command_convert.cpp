@@ -45,10 +45,9 @@ int run_convert(int argc, char** argv) {
     return kExitBadInput;
   }
   OutputGuard guard;
-  LoadResult r = load_network(args.positional[0], args, guard);
-  print_diagnostics(r.diagnostics);
-  if (!r.ok()) return kExitBadInput;
-  const Network& net = *r.network;
+  const std::optional<Network> loaded = load_for_command(args, guard);
+  if (!loaded) return kExitBadInput;
+  const Network& net = *loaded;
   const std::string& out = args.positional[1];
   std::string error;
   bool ok = true;

@@ -89,10 +89,7 @@ int run_fair(int argc, char** argv) {
   valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv"});
   Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs"});
   if (args.has("help")) return std::cout << kHelp, kExitOk;
-  if (!args.error.empty() || args.positional.size() != 1) {
-    std::cerr << "apportion " << cmd << ": " << (args.error.empty() ? "expected one FILE" : args.error) << "\n\n" << kHelp;
-    return kExitBadInput;
-  }
+  if (usage_error(args, cmd, 1, kHelp)) return kExitBadInput;
   FairOptions opt;
   opt.objective = objective_of(cmd);
   std::string error;
@@ -113,10 +110,9 @@ int run_fair(int argc, char** argv) {
     opt.epsilon = *v;
   }
   OutputGuard guard;
-  LoadResult loaded = load_network(args.positional[0], args, guard);
-  print_diagnostics(loaded.diagnostics);
-  if (!loaded.ok()) return kExitBadInput;
-  const Network& net = *loaded.network;
+  const std::optional<Network> loaded = load_for_command(args, guard);
+  if (!loaded) return kExitBadInput;
+  const Network& net = *loaded;
 
   const MultiflowResult r = solve_multiflow(net, opt);
   if (r.status != SolveStatus::kOptimal) {

@@ -138,16 +138,11 @@ int run_max_flow(int argc, char** argv) {
   const bool cut_first = std::string(argv[1]) == "mincut";
   Args args = parse_flow_args(argc, argv, {});
   if (args.has("help")) return std::cout << kMaxFlowHelp, kExitOk;
-  if (!args.error.empty() || args.positional.size() != 1) {
-    std::cerr << "apportion " << argv[1] << ": " << (args.error.empty() ? "expected one FILE" : args.error) << "\n\n"
-              << kMaxFlowHelp;
-    return kExitBadInput;
-  }
+  if (usage_error(args, argv[1], 1, kMaxFlowHelp)) return kExitBadInput;
   OutputGuard guard;
-  LoadResult r = load_network(args.positional[0], args, guard);
-  print_diagnostics(r.diagnostics);
-  if (!r.ok()) return kExitBadInput;
-  const Network& net = *r.network;
+  const std::optional<Network> loaded = load_for_command(args, guard);
+  if (!loaded) return kExitBadInput;
+  const Network& net = *loaded;
 
   std::vector<int> sources, sinks;
   std::string error;
@@ -203,16 +198,11 @@ int run_max_flow(int argc, char** argv) {
 int run_min_cost_flow(int argc, char** argv) {
   Args args = parse_flow_args(argc, argv, {"amount"});
   if (args.has("help")) return std::cout << kMinCostHelp, kExitOk;
-  if (!args.error.empty() || args.positional.size() != 1) {
-    std::cerr << "apportion mincost: " << (args.error.empty() ? "expected one FILE" : args.error) << "\n\n"
-              << kMinCostHelp;
-    return kExitBadInput;
-  }
+  if (usage_error(args, "mincost", 1, kMinCostHelp)) return kExitBadInput;
   OutputGuard guard;
-  LoadResult r = load_network(args.positional[0], args, guard);
-  print_diagnostics(r.diagnostics);
-  if (!r.ok()) return kExitBadInput;
-  const Network& net = *r.network;
+  const std::optional<Network> loaded = load_for_command(args, guard);
+  if (!loaded) return kExitBadInput;
+  const Network& net = *loaded;
 
   std::vector<double> supply(net.node_count(), 0.0);
   bool has_supplies = false;

@@ -26,10 +26,7 @@ Example:
 int run_validate(int argc, char** argv) {
   Args args = parse_args(argc, argv, 2, kLoaderOptions, {"help"});
   if (args.has("help")) return std::cout << kHelp, kExitOk;
-  if (!args.error.empty() || args.positional.size() != 1) {
-    std::cerr << "apportion validate: " << (args.error.empty() ? "expected one FILE" : args.error) << "\n\n" << kHelp;
-    return kExitBadInput;
-  }
+  if (usage_error(args, "validate", 1, kHelp)) return kExitBadInput;
   OutputGuard guard;
   LoadResult r = load_network(args.positional[0], args, guard);
   print_diagnostics(r.diagnostics);

@@ -85,4 +85,19 @@ void print_diagnostics(const Diagnostics& d) {
   for (const Diagnostic& x : d.items) std::cerr << x.to_string() << '\n';
 }
 
+std::optional<Network> load_for_command(const Args& args, OutputGuard& guard) {
+  LoadResult r = load_network(args.positional[0], args, guard);
+  print_diagnostics(r.diagnostics);
+  return std::move(r.network);
+}
+
+bool usage_error(const Args& args, const std::string& command, std::size_t positionals, const char* help) {
+  if (args.error.empty() && args.positional.size() == positionals) return false;
+  std::cerr << "apportion " << command << ": "
+            << (args.error.empty() ? (positionals == 1 ? std::string("expected one FILE") : "wrong number of arguments")
+                                   : args.error)
+            << "\n\n" << help;
+  return true;
+}
+
 }  // namespace apportion::cli

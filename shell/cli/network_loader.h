@@ -3,6 +3,7 @@
 // CSV tables given as NAME.nodes.csv (NAME.arcs.csv and NAME.demands.csv beside it).
 #pragma once
 
+#include <optional>
 #include <string>
 
 #include "apportion/load_result.h"
@@ -21,5 +22,13 @@ LoadResult load_network(const std::string& path, const Args& args, OutputGuard& 
 
 // Prints the diagnostics to stderr, one per line.
 void print_diagnostics(const Diagnostics& d);
+
+// What every solving subcommand does first: load the file named by the first positional,
+// print its diagnostics, and give the network, or nothing when it has errors.
+std::optional<Network> load_for_command(const Args& args, OutputGuard& guard);
+
+// True (after printing the problem and the help to stderr) when the arguments do not parse
+// or there are not exactly `positionals` of them.
+bool usage_error(const Args& args, const std::string& command, std::size_t positionals, const char* help);
 
 }  // namespace apportion::cli
