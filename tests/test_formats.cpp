@@ -150,3 +150,32 @@ TEST_CASE("GraphML: broken XML and dangling edges are refused", "[graphml]") {
   CHECK(!r.ok());
   CHECK(r.diagnostics.items[0].field == "target");
 }
+
+TEST_CASE("CSV: spreadsheet formulas are neutralised and read back exactly", "[csv][hostile]") {
+  // OWASP, "CSV Injection" (cheat sheet, from memory): cells starting with = + - @ tab or CR
+  // run as formulas in spreadsheets; an apostrophe in front makes them text.
+  CHECK(csv_field("=HYPERLINK(\"http://x\")") == "\"'=HYPERLINK(\"\"http://x\"\")\"");
+  CHECK(csv_field("@SUM(A1)") == "'@SUM(A1)");
+  CHECK(csv_field("+cmd") == "'+cmd");
+  CHECK(csv_field("-5") == "-5");      // numbers stay numbers
+  CHECK(csv_field("+1e3") == "+1e3");
+  CHECK(csv_field("plain") == "plain");
+  for (const std::string v : {"=1+1", "@x", "-a", "'=kept", "'plain", "\tTAB"}) {
+    CsvParse p = parse_csv(write_csv({{v}}));
+    REQUIRE(p.error.empty());
+    REQUIRE(p.rows.size() == 1);
+    CHECK(p.rows[0][0] == v);
+  }
+  // Through the network tables: a hostile node id survives the round trip.
+  LoadResult r = read_network_json(R"({"format":"apportion-network","version":1,
+    "nodes":[{"id":"=cmd|' /C calc'!A0"},{"id":"b","label":"@evil"}],
+    "arcs":[{"id":"-e","from":"=cmd|' /C calc'!A0","to":"b","capacity":1}],"demands":[]})");
+  REQUIRE(r.ok());
+  NetworkCsv t = write_network_csv(*r.network);
+  CHECK(t.nodes.find("'=cmd") != std::string::npos);
+  LoadResult back = read_network_csv(t);
+  REQUIRE(back.ok());
+  CHECK(back.network->nodes[0].id == "=cmd|' /C calc'!A0");
+  CHECK(back.network->nodes[1].label == "@evil");
+  CHECK(back.network->arcs[0].id == "-e");
+}

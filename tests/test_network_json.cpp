@@ -106,3 +106,16 @@ TEST_CASE("network JSON: warnings do not stop loading", "[json][validation]") {
   CHECK(has_message(r, Severity::kWarning, "demand", "k", "destination"));  // c is not reachable from a
   CHECK(r.diagnostics.error_count() == 0);
 }
+
+TEST_CASE("network JSON: duplicate keys are refused by name", "[json][hostile]") {
+  // RFC 8259 section 4: names within an object SHOULD be unique; behaviour is otherwise
+  // unpredictable, so Apportion refuses such files.
+  LoadResult r = read_network_json(
+      R"({"format":"apportion-network","version":1,"nodes":[{"id":"a","id":"b"}],"arcs":[],"demands":[]})");
+  CHECK(!r.ok());
+  CHECK(has_message(r, Severity::kError, "file", "", "id"));
+  LoadResult top = read_network_json(R"({"format":"apportion-network","version":1,"version":1,"nodes":[]})");
+  CHECK(!top.ok());
+  // The same key in different objects is fine.
+  CHECK(read_network_json(doc(kTwoNodes, "[]")).ok());
+}

@@ -1,7 +1,19 @@
 // RFC 4180 reading and writing; see csv_table.h.
 #include "apportion/csv_table.h"
 
+#include "apportion/number_text.h"
+
 namespace apportion {
+
+namespace {
+bool formula_start(char c) { return c == '=' || c == '+' || c == '-' || c == '@' || c == '\t' || c == '\r'; }
+// Apostrophes, then a formula character: the fields that carry (or need) the text mark.
+bool marked_shape(const std::string& s) {
+  std::size_t i = 0;
+  while (i < s.size() && s[i] == '\'') ++i;
+  return i < s.size() && formula_start(s[i]);
+}
+}  // namespace
 
 CsvParse parse_csv(const std::string& text) {
   CsvParse out;
@@ -10,6 +22,7 @@ CsvParse parse_csv(const std::string& text) {
   bool quoted = false, field_started = false;
   int line = 1, quote_line = 0;
   auto end_field = [&] {
+    if (!field.empty() && field[0] == '\'' && marked_shape(field)) field.erase(0, 1);  // see csv_table.h
     row.push_back(std::move(field));
     field.clear();
     field_started = false;
@@ -63,7 +76,11 @@ CsvParse parse_csv(const std::string& text) {
   return out;
 }
 
-std::string csv_field(const std::string& value) {
+std::string csv_field(const std::string& raw) {
+  // A text that a spreadsheet would run as a formula gets an apostrophe (csv_table.h); so
+  // does a text that already starts with one, so that reading gives it back unchanged.
+  const bool mark = marked_shape(raw) && !(raw[0] != '\'' && parse_number(raw));
+  const std::string value = mark ? "'" + raw : raw;
   if (value.find_first_of(",\"\r\n") == std::string::npos) return value;
   std::string q = "\"";
   for (char c : value) {

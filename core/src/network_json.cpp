@@ -3,6 +3,7 @@
 // hostile file produces a diagnostic, never an abort.
 #include "apportion/network_json.h"
 
+#include <algorithm>
 #include <cmath>
 #include <nlohmann/json.hpp>
 
@@ -135,7 +136,31 @@ LoadResult read_network_json(const std::string& text) {
     d.error("file", "", "", "larger than the limit of 512 MiB");
     return result;
   }
-  json root = json::parse(text, nullptr, /*allow_exceptions=*/false);
+  // JSON leaves duplicate keys undefined (RFC 8259, section 4) and a parser keeps one of
+  // them silently; a file that says a thing twice is refused instead.
+  std::vector<std::vector<std::string>> open_objects;
+  std::string duplicate;
+  const json::parser_callback_t find_duplicates = [&](int, json::parse_event_t event, json& parsed) {
+    if (event == json::parse_event_t::object_start) {
+      open_objects.emplace_back();
+    } else if (event == json::parse_event_t::object_end) {
+      if (!open_objects.empty()) open_objects.pop_back();
+    } else if (event == json::parse_event_t::key && !open_objects.empty() && parsed.is_string()) {
+      auto& keys = open_objects.back();
+      const std::string& k = parsed.get_ref<const std::string&>();
+      if (std::find(keys.begin(), keys.end(), k) != keys.end()) {
+        if (duplicate.empty()) duplicate = k;
+      } else {
+        keys.push_back(k);
+      }
+    }
+    return true;
+  };
+  json root = json::parse(text, find_duplicates, /*allow_exceptions=*/false);
+  if (!root.is_discarded() && !duplicate.empty()) {
+    d.error("file", "", duplicate, "the key '" + duplicate + "' appears twice in one object");
+    return result;
+  }
   if (root.is_discarded()) {
     ErrorFinder finder;
     json::sax_parse(text, &finder, nlohmann::detail::input_format_t::json, /*strict=*/true);

@@ -1,6 +1,12 @@
 // RFC 4180 comma-separated tables: fields with commas, quotes or line breaks are quoted,
 // quotes doubled. The reader accepts CRLF or LF line ends and reports the line of a broken
 // quote. Used by the network CSV tables and by result exports.
+//
+// Spreadsheet formulas: a text field starting with '=', '+', '-', '@', a tab or a carriage
+// return would run as a formula when a spreadsheet opens the file (the "CSV injection" of
+// the OWASP guidance). Writing prefixes such a field with an apostrophe, which spreadsheets
+// show as text; numbers ("-5", "+1e3") are left alone. Reading removes the apostrophe again,
+// so Apportion's own tables round-trip exactly.
 #pragma once
 
 #include <string>
