@@ -110,6 +110,39 @@ struct ErrorFinder : nlohmann::json_sax<json> {
   }
 };
 
+// A SAX pass that records the first key repeated within one object.
+struct DuplicateKeyFinder : nlohmann::json_sax<json> {
+  std::vector<std::vector<std::string>> open;
+  std::string duplicate;
+  bool null() override { return true; }
+  bool boolean(bool) override { return true; }
+  bool number_integer(number_integer_t) override { return true; }
+  bool number_unsigned(number_unsigned_t) override { return true; }
+  bool number_float(number_float_t, const string_t&) override { return true; }
+  bool string(string_t&) override { return true; }
+  bool binary(binary_t&) override { return true; }
+  bool start_object(std::size_t) override {
+    open.emplace_back();
+    return true;
+  }
+  bool key(string_t& k) override {
+    auto& keys = open.back();
+    if (std::find(keys.begin(), keys.end(), k) != keys.end()) {
+      if (duplicate.empty()) duplicate = k;
+    } else {
+      keys.push_back(k);
+    }
+    return true;
+  }
+  bool end_object() override {
+    open.pop_back();
+    return true;
+  }
+  bool start_array(std::size_t) override { return true; }
+  bool end_array() override { return true; }
+  bool parse_error(std::size_t, const std::string&, const nlohmann::detail::exception&) override { return false; }
+};
+
 std::string id_or_position(const json& obj, std::size_t i) {
   auto it = obj.find("id");
   if (it != obj.end() && it->is_string() && it->get_ref<const std::string&>().size() <= SizeLimits::kMaxStringLength)
@@ -136,35 +169,20 @@ LoadResult read_network_json(const std::string& text) {
     d.error("file", "", "", "larger than the limit of 512 MiB");
     return result;
   }
-  // JSON leaves duplicate keys undefined (RFC 8259, section 4) and a parser keeps one of
-  // them silently; a file that says a thing twice is refused instead.
-  std::vector<std::vector<std::string>> open_objects;
-  std::string duplicate;
-  const json::parser_callback_t find_duplicates = [&](int, json::parse_event_t event, json& parsed) {
-    if (event == json::parse_event_t::object_start) {
-      open_objects.emplace_back();
-    } else if (event == json::parse_event_t::object_end) {
-      if (!open_objects.empty()) open_objects.pop_back();
-    } else if (event == json::parse_event_t::key && !open_objects.empty() && parsed.is_string()) {
-      auto& keys = open_objects.back();
-      const std::string& k = parsed.get_ref<const std::string&>();
-      if (std::find(keys.begin(), keys.end(), k) != keys.end()) {
-        if (duplicate.empty()) duplicate = k;
-      } else {
-        keys.push_back(k);
-      }
-    }
-    return true;
-  };
-  json root = json::parse(text, find_duplicates, /*allow_exceptions=*/false);
-  if (!root.is_discarded() && !duplicate.empty()) {
-    d.error("file", "", duplicate, "the key '" + duplicate + "' appears twice in one object");
-    return result;
-  }
+  json root = json::parse(text, nullptr, /*allow_exceptions=*/false);
   if (root.is_discarded()) {
     ErrorFinder finder;
     json::sax_parse(text, &finder, nlohmann::detail::input_format_t::json, /*strict=*/true);
     d.error("file", "", "", finder.message.empty() ? "not valid JSON" : finder.message);
+    return result;
+  }
+  // JSON leaves duplicate keys undefined (RFC 8259, section 4) and the parser keeps one of
+  // them silently; a file that says a thing twice is refused instead. A second, linear SAX
+  // pass finds them (nlohmann's callback parser is quadratic on large arrays).
+  DuplicateKeyFinder duplicates;
+  json::sax_parse(text, &duplicates, nlohmann::detail::input_format_t::json, /*strict=*/true);
+  if (!duplicates.duplicate.empty()) {
+    d.error("file", "", duplicates.duplicate, "the key '" + duplicates.duplicate + "' appears twice in one object");
     return result;
   }
   if (!root.is_object()) {

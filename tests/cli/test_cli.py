@@ -119,5 +119,33 @@ v1 = run("maxflow", demos[0]).stdout.split()[2]
 v2 = run("maxflow", base + ".max").stdout.split()[2]
 check("the same maximum flow after JSON -> CSV -> JSON -> DIMACS", v1 == v2, f"{v1!r} vs {v2!r}")
 
+# Killed mid-write: the output is the old file or the whole new one, never a part.
+import signal
+import time
+big = {"format": "apportion-network", "version": 1, "name": "big", "nodes": [{"id": f"n{i}"} for i in range(20000)],
+       "arcs": [{"id": f"a{i}", "from": f"n{i % 20000}", "to": f"n{(i * 7 + 1) % 20000}", "capacity": i % 97 + 1}
+                for i in range(200000)], "demands": []}
+big_path = w("big.json", json.dumps(big))
+target = os.path.join(args.work, "big-out.json")
+intact = True
+outcomes = []
+# Kill times spread over the whole run (about a second here), the write at its end included.
+for delay in [0.1 * i for i in range(1, 16)]:
+    with open(target, "w") as f:
+        f.write("OLD")
+    p = subprocess.Popen([args.apportion, "convert", big_path, "--to", "json", target])
+    time.sleep(delay)
+    p.send_signal(signal.SIGKILL)
+    p.wait()
+    text = open(target).read()
+    outcomes.append("old" if text == "OLD" else "new")
+    if text != "OLD":
+        try:
+            intact = intact and len(json.loads(text)["arcs"]) == 200000
+        except ValueError:
+            intact = False
+check("a write killed at any moment leaves the old file or the whole new one", intact, " ".join(outcomes))
+print(f"      kill outcomes: {' '.join(outcomes)}")
+
 print(f"{passed} passed, {failed} failed")
 sys.exit(1 if failed else 0)
