@@ -47,7 +47,6 @@ class PushRelabel {
       head_[b] = r.tail, res_[b] = r.back, rev_[b] = f;
       fwd_[i] = f;
     }
-    graph_arcs_ = g.arc_count();
     excess_.assign(n_, 0.0);
     label_.assign(n_, n_);
     cur_.assign(n_, 0);
@@ -210,7 +209,7 @@ class PushRelabel {
   static constexpr int kRelabelWork = 12;
   int n_, source_, sink_;
   Tolerance tol_;
-  int target_ = -1, blocked_ = -1, graph_arcs_ = 0;
+  int target_ = -1, blocked_ = -1;
   std::vector<int> first_, head_, rev_, fwd_;
   std::vector<double> res_, excess_;
   std::vector<int> label_, cur_;

@@ -84,36 +84,16 @@ class FieldReader {
   std::string id_;
 };
 
-// A SAX pass that only records why the text is not JSON, with its byte position. It runs
-// after a failed parse, to turn "not valid JSON" into a message a user can act on.
-struct ErrorFinder : nlohmann::json_sax<json> {
-  std::string message;
-  bool null() override { return true; }
-  bool boolean(bool) override { return true; }
-  bool number_integer(number_integer_t) override { return true; }
-  bool number_unsigned(number_unsigned_t) override { return true; }
-  bool number_float(number_float_t, const string_t&) override { return true; }
-  bool string(string_t&) override { return true; }
-  bool binary(binary_t&) override { return true; }
-  bool start_object(std::size_t) override { return true; }
-  bool key(string_t&) override { return true; }
-  bool end_object() override { return true; }
-  bool start_array(std::size_t) override { return true; }
-  bool end_array() override { return true; }
-  bool parse_error(std::size_t position, const std::string& last_token, const nlohmann::detail::exception& ex) override {
-    std::string what = ex.what();
-    // nlohmann's messages start with "[json.exception.parse_error.101] parse error at line 1, column 5: "
-    const auto colon = what.find(": ");
-    message = "not valid JSON at byte " + std::to_string(position) + " (near '" + last_token.substr(0, 40) +
-              "'): " + (colon == std::string::npos ? what : what.substr(colon + 2));
-    return false;
-  }
-};
-
-// A SAX pass that records the first key repeated within one object.
-struct DuplicateKeyFinder : nlohmann::json_sax<json> {
-  std::vector<std::vector<std::string>> open;
+// One SAX pass over the text before it is parsed into a document. It records
+//  - why the text is not JSON, with the byte position, as a message a user can act on;
+//  - the first key repeated within one object: JSON leaves duplicates undefined (RFC 8259,
+//    section 4) and the parser would keep one silently; Apportion refuses such a file.
+// A SAX pass is linear; nlohmann's callback parser would be quadratic on large arrays.
+struct JsonChecker : nlohmann::json_sax<json> {
+  std::string parse_message;
   std::string duplicate;
+  std::vector<std::vector<std::string>> open;  // keys seen in each open object
+
   bool null() override { return true; }
   bool boolean(bool) override { return true; }
   bool number_integer(number_integer_t) override { return true; }
@@ -127,11 +107,10 @@ struct DuplicateKeyFinder : nlohmann::json_sax<json> {
   }
   bool key(string_t& k) override {
     auto& keys = open.back();
-    if (std::find(keys.begin(), keys.end(), k) != keys.end()) {
-      if (duplicate.empty()) duplicate = k;
-    } else {
+    if (std::find(keys.begin(), keys.end(), k) == keys.end())
       keys.push_back(k);
-    }
+    else if (duplicate.empty())
+      duplicate = k;
     return true;
   }
   bool end_object() override {
@@ -140,7 +119,14 @@ struct DuplicateKeyFinder : nlohmann::json_sax<json> {
   }
   bool start_array(std::size_t) override { return true; }
   bool end_array() override { return true; }
-  bool parse_error(std::size_t, const std::string&, const nlohmann::detail::exception&) override { return false; }
+  bool parse_error(std::size_t position, const std::string& last_token, const nlohmann::detail::exception& ex) override {
+    std::string what = ex.what();
+    // nlohmann's messages start with "[json.exception.parse_error.101] parse error at line 1, column 5: "
+    const auto colon = what.find(": ");
+    parse_message = "not valid JSON at byte " + std::to_string(position) + " (near '" + last_token.substr(0, 40) +
+                    "'): " + (colon == std::string::npos ? what : what.substr(colon + 2));
+    return false;
+  }
 };
 
 std::string id_or_position(const json& obj, std::size_t i) {
@@ -169,22 +155,18 @@ LoadResult read_network_json(const std::string& text) {
     d.error("file", "", "", "larger than the limit of 512 MiB");
     return result;
   }
-  json root = json::parse(text, nullptr, /*allow_exceptions=*/false);
-  if (root.is_discarded()) {
-    ErrorFinder finder;
-    json::sax_parse(text, &finder, nlohmann::detail::input_format_t::json, /*strict=*/true);
-    d.error("file", "", "", finder.message.empty() ? "not valid JSON" : finder.message);
+  JsonChecker checker;
+  const bool well_formed =
+      json::sax_parse(text, &checker, nlohmann::detail::input_format_t::json, /*strict=*/true);
+  if (!well_formed) {
+    d.error("file", "", "", checker.parse_message.empty() ? "not valid JSON" : checker.parse_message);
     return result;
   }
-  // JSON leaves duplicate keys undefined (RFC 8259, section 4) and the parser keeps one of
-  // them silently; a file that says a thing twice is refused instead. A second, linear SAX
-  // pass finds them (nlohmann's callback parser is quadratic on large arrays).
-  DuplicateKeyFinder duplicates;
-  json::sax_parse(text, &duplicates, nlohmann::detail::input_format_t::json, /*strict=*/true);
-  if (!duplicates.duplicate.empty()) {
-    d.error("file", "", duplicates.duplicate, "the key '" + duplicates.duplicate + "' appears twice in one object");
+  if (!checker.duplicate.empty()) {
+    d.error("file", "", checker.duplicate, "the key '" + checker.duplicate + "' appears twice in one object");
     return result;
   }
+  const json root = json::parse(text, nullptr, /*allow_exceptions=*/false);
   if (!root.is_object()) {
     d.error("file", "", "", "the top level must be a JSON object");
     return result;

@@ -36,7 +36,6 @@ Layout fit_layout(const Network& net, double width, double height, double margin
   const double sx = (width - 2 * margin - label_room) / std::max(1e-9, max_x - l.min_x);
   const double sy = (height - 2 * margin) / std::max(1e-9, max_y - l.min_y);
   l.scale = std::max(1e-9, std::min(sx, sy));
-  l.node_count = net.node_count();
   return l;
 }
 

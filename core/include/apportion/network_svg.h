@@ -24,7 +24,6 @@ Rgb utilisation_colour(double utilisation);
 // the right). Nodes without a position are placed on a circle.
 struct Layout {
   double min_x = 0, min_y = 0, scale = 1, margin = 0;
-  int node_count = 0;
   std::pair<double, double> position(const Node& v) const;
 };
 Layout fit_layout(const Network& net, double width, double height, double margin, double label_room);
