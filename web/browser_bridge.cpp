@@ -6,6 +6,8 @@
 
 #include <emscripten.h>
 
+#include <cstdlib>
+
 namespace apportion::web {
 
 namespace {
@@ -18,6 +20,16 @@ EM_JS(void, js_open_picker, (), { apportionBridge.openPicker(); });
 EM_JS(void, js_share, (const char* json), { apportionBridge.share(UTF8ToString(json)); });
 EM_JS(void, js_autosave, (const char* json), { apportionBridge.autosave(UTF8ToString(json)); });
 EM_JS(void, js_startup, (), { apportionBridge.startup(); });
+EM_JS(void, js_solve, (int id, const char* request), { apportionBridge.solve(id, UTF8ToString(request)); });
+EM_JS(char*, js_autosave_list, (), {
+  var s = apportionBridge.autosaveList();
+  var len = lengthBytesUTF8(s) + 1;
+  var p = _malloc(len);
+  stringToUTF8(s, p, len);
+  return p;
+});
+EM_JS(void, js_restore_autosave, (int slot), { apportionBridge.restoreAutosave(slot); });
+EM_JS(void, js_stop_solver, (), { apportionBridge.stopSolver(); });
 
 }  // namespace
 
@@ -29,5 +41,14 @@ void download_canvas_png(const std::string& filename) { js_png(filename.c_str())
 void publish_share_link(const std::string& network_json) { js_share(network_json.c_str()); }
 void autosave(const std::string& network_json) { js_autosave(network_json.c_str()); }
 void load_startup_network() { js_startup(); }
+void start_solve(int id, const std::string& request_json) { js_solve(id, request_json.c_str()); }
+void stop_solver() { js_stop_solver(); }
+std::string autosave_versions() {
+  char* p = js_autosave_list();
+  std::string s = p ? p : "[]";
+  std::free(p);
+  return s;
+}
+void restore_autosave(int slot) { js_restore_autosave(slot); }
 
 }  // namespace apportion::web

@@ -18,7 +18,19 @@ void open_file_picker();
 // copies the link to the clipboard when allowed, and logs it for tests.
 void publish_share_link(const std::string& network_json);
 // Keeps the network JSON in local storage, restored when the page opens without a link.
+// The last kAutosaveVersions versions are kept; a failure (quota, blocked storage) is
+// reported back through apportion_storage_event.
 void autosave(const std::string& network_json);
+inline constexpr int kAutosaveVersions = 5;
+// The kept versions, newest first, as JSON: [{"slot", "time" (ms), "tab", "name", "bytes"}].
+std::string autosave_versions();
+// Opens a kept version; it arrives like a file, with source "autosave".
+void restore_autosave(int slot);
+// Sends a solve request to the solver worker (started on first use from the script inlined
+// in the page); answers arrive through apportion_solve_progress / _done / _failed.
+void start_solve(int id, const std::string& request_json);
+// Terminates the worker, stopping a solve at once; the next start_solve starts a new one.
+void stop_solver();
 // At start: a network from the URL fragment, else from autosave; arrives like a file.
 void load_startup_network();
 

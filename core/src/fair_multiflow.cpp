@@ -52,6 +52,11 @@ class Engine {
   LpSolver& lp() { return master_.lp(); }
   bool solve(MultiflowResult& r) {
     const LpStatus s = master_.solve();
+    if (opt_.on_progress) {
+      progress_.demands = K();
+      progress_.lp_solves = master_.stats().lp_solves;
+      opt_.on_progress(progress_);
+    }
     if (s == LpStatus::kOptimal) return true;
     r.status = SolveStatus::kNumericalDifficulty;
     r.message = std::string("the LP solver reported '") + lp_status_name(s) + "' (" + lp().last_message() + ")";
@@ -89,6 +94,7 @@ class Engine {
   PathMaster master_;
   Tolerance tol_;
   std::vector<double> concurrent_lengths_;
+  SolveProgress progress_;
 };
 
 // Progressive filling with exact freezing; fills r.tiers and r.demands[k].tier and
@@ -103,7 +109,9 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     if (!master_.reachable(k)) frozen[k] = 1, unreachable.push_back(k);
   }
   const int level = master_.level_column();
+  progress_.stage = "max-min fair";
   for (int round = 1;; ++round) {
+    progress_.round = round;
     std::vector<int> open;
     for (int k = 0; k < K(); ++k)
       if (!frozen[k]) open.push_back(k);
@@ -205,6 +213,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
       r.demands[k].tier = tier.index;
     }
     tier.demands = freeze;
+    progress_.demands_settled += static_cast<int>(freeze.size());
     r.tiers.push_back(tier);
     lp().set_column_bounds(level, 0.0, kInf);
   }
@@ -220,6 +229,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
 }
 
 bool Engine::max_throughput(MultiflowResult& r, bool finite_only, double& value) {
+  progress_.stage = "max throughput";
   reset_objective();
   for (int k = 0; k < K(); ++k) {
     const bool take = !finite_only || std::isfinite(specs_[k].amount);
@@ -232,6 +242,7 @@ bool Engine::max_throughput(MultiflowResult& r, bool finite_only, double& value)
 }
 
 bool Engine::max_concurrent(MultiflowResult& r, double& lambda) {
+  progress_.stage = "max concurrent flow";
   reset_objective();
   double total = 0.0;
   for (int k = 0; k < K(); ++k) {
@@ -259,6 +270,7 @@ bool Engine::max_concurrent(MultiflowResult& r, double& lambda) {
 // With the shares fixed where the caller left them, route with the fewest arcs in total:
 // among equally fair routings, the one a planner would draw.
 bool Engine::tidy_routes(MultiflowResult& r) {
+  progress_.stage = "routes";
   lp().set_cost(master_.level_column(), 0.0);
   for (int k = 0; k < K(); ++k) lp().set_cost(master_.share_column(k), 0.0);
   master_.set_route_costs(true);
@@ -441,6 +453,7 @@ MultiflowResult Engine::run() {
     }
     case FairObjective::kTradeoff: {
       if (!max_min(r, fair)) return r;
+      progress_.stage = "throughput with a fairness floor";
       reset_objective();
       const double keep = 1.0 - std::clamp(opt_.epsilon, 0.0, 1.0);
       for (int k = 0; k < K(); ++k) {

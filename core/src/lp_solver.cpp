@@ -41,6 +41,10 @@ int LpSolver::add_row(double lower, double upper, const std::vector<int>& column
   return row_count() - 1;
 }
 
+void LpSolver::set_method(Method m) {
+  impl_->highs.setOptionValue("simplex_strategy", m == Method::kPrimal ? kSimplexStrategyPrimal : kSimplexStrategyDual);
+}
+
 void LpSolver::set_cost(int column, double cost) { impl_->highs.changeColCost(column, cost); }
 void LpSolver::set_column_bounds(int column, double lower, double upper) {
   impl_->highs.changeColBounds(column, lower, upper);

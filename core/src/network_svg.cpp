@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstdio>
 #include <sstream>
+#include <unordered_set>
 
 #include "apportion/flow_result_export.h"
 
@@ -39,11 +40,17 @@ Layout fit_layout(const Network& net, double width, double height, double margin
   return l;
 }
 
-ArcGeometry arc_geometry(const Network& net, int a, float x0, float y0, float x1, float y1, float offset) {
-  const Arc& arc = net.arcs[a];
-  bool twin = false;
-  if (!arc.shared_two_way)
-    for (const Arc& b : net.arcs) twin |= b.from == arc.to && b.to == arc.from;
+std::vector<char> arcs_with_twin(const Network& net) {
+  std::unordered_set<long long> ends;
+  auto key = [](int u, int v) { return static_cast<long long>(u) * 2147483648LL + v; };
+  for (const Arc& a : net.arcs) ends.insert(key(a.from, a.to));
+  std::vector<char> twin(net.arcs.size(), 0);
+  for (std::size_t a = 0; a < net.arcs.size(); ++a)
+    twin[a] = !net.arcs[a].shared_two_way && ends.count(key(net.arcs[a].to, net.arcs[a].from)) ? 1 : 0;
+  return twin;
+}
+
+ArcGeometry arc_geometry(bool twin, float x0, float y0, float x1, float y1, float offset) {
   const float dx = x1 - x0, dy = y1 - y0, len = std::max(1.0f, std::sqrt(dx * dx + dy * dy));
   const float off = twin ? offset : 0.0f;
   const float nx = -dy / len * off, ny = dx / len * off;
@@ -87,11 +94,12 @@ std::string network_svg(const Network& net, const MultiflowResult* result, doubl
   const Layout layout = fit_layout(net, width, height, 40, 140);
   double max_cap = 0;
   for (const Arc& a : net.arcs) max_cap = std::max(max_cap, a.capacity);
+  const std::vector<char> twin = arcs_with_twin(net);
   for (int a = 0; a < net.arc_count(); ++a) {
     const Arc& arc = net.arcs[a];
     const auto [x0, y0] = layout.position(net.nodes[arc.from]);
     const auto [x1, y1] = layout.position(net.nodes[arc.to]);
-    const ArcGeometry g = arc_geometry(net, a, static_cast<float>(x0), static_cast<float>(y0), static_cast<float>(x1),
+    const ArcGeometry g = arc_geometry(twin[a], static_cast<float>(x0), static_cast<float>(y0), static_cast<float>(x1),
                                        static_cast<float>(y1), 5.0f);
     const double u = result && a < static_cast<int>(result->arcs.size()) ? result->arcs[a].utilisation : 0.0;
     const double w = 1.5 + 5.0 * std::sqrt(max_cap > 0 ? arc.capacity / max_cap : 0);

@@ -1,7 +1,9 @@
 // Browser tests of the Apportion page in Debian's chromium (headless, SwiftShader WebGL2),
 // driven by playwright-core. The page reports events on the console as
 // "apportion:<event> {json}" and runs a button's action through the exported
-// apportion_test_action(), so no test guesses pixels. Screenshots go to the artefacts folder.
+// apportion_test_action(); canvas edits use the real mouse and keyboard at node positions the
+// page reports, so no test guesses pixels. Screenshots and measurements go to the artefacts
+// folder.
 //
 // usage: node app.mjs --web DIR --root REPO --expected DIR --artefacts DIR
 //   DIR of --expected holds the command line's results: <demo>.fair.json for each demo.
@@ -10,6 +12,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import os from 'node:os';
 import { chromium } from 'playwright-core';
+import { grid, hostile } from './networks.mjs';
 
 const arg = (name) => { const i = process.argv.indexOf(name); return i > 0 ? process.argv[i + 1] : undefined; };
 const webDir = path.resolve(arg('--web'));
@@ -19,6 +22,9 @@ const artefacts = path.resolve(arg('--artefacts'));
 fs.mkdirSync(artefacts, { recursive: true });
 const expected = (demo) => JSON.parse(fs.readFileSync(path.join(expectedDir, `${demo}.fair.json`), 'utf8'));
 const demoFile = (demo) => path.join(root, 'demo-networks', `${demo}.json`);
+const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'apportion-browser-'));
+const writeTmp = (name, text) => { const f = path.join(tmp, name); fs.writeFileSync(f, text); return f; };
+const measurements = {};
 
 const types = { '.html': 'text/html', '.js': 'text/javascript', '.wasm': 'application/wasm' };
 const server = http.createServer((req, res) => {
@@ -38,23 +44,20 @@ let passed = 0, failed = 0;
 const check = (name, ok, detail = '') => {
   if (ok) { passed++; console.log(`ok    ${name}`); } else { failed++; console.log(`FAIL  ${name} ${detail}`); }
 };
-const sameShares = (a, b) => a.length === b.length &&
+const sameShares = (a, b) => Array.isArray(a) && a.length === b.length &&
   a.every((x, i) => Math.abs(x - b[i]) <= 1e-6 * Math.max(1, Math.abs(b[i])));
 
-// A browser with a fresh profile; events() waits for the next console event of a kind.
-async function browser() {
-  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'apportion-chromium-'));
-  const context = await chromium.launchPersistentContext(profile, {
-    executablePath: '/usr/bin/chromium', headless: true, args: flags, deviceScaleFactor: 2,
-    acceptDownloads: true, viewport: { width: 1200, height: 760 } });
-  const page = context.pages()[0] || await context.newPage();
+// Page helpers: events() waits for the next console event of a kind; act() runs an action.
+function instrument(page) {
   const requests = [];
   page.on('request', (r) => requests.push(r.url()));
   const seen = [];
   const waiters = [];
+  const dialogs = [];
+  page.on('dialog', (d) => { dialogs.push(d.message()); d.dismiss().catch(() => {}); });
   page.on('console', (m) => {
     const t = m.text();
-    const match = /^apportion:([a-z-]+) (.*)$/.exec(t);
+    const match = /^apportion:([a-z-]+) (.*)$/s.exec(t);
     if (!match) return;
     let data = match[2];
     try { data = JSON.parse(match[2]); } catch (e) { /* a plain text event, e.g. share-link */ }
@@ -62,7 +65,7 @@ async function browser() {
     seen.push(ev);
     for (const w of waiters.splice(0)) if (!w(ev)) waiters.push(w);
   });
-  const next = (kind, timeout = 30000) => new Promise((resolve) => {
+  const next = (kind, timeout = 60000) => new Promise((resolve) => {
     const timer = setTimeout(() => resolve(null), timeout);
     waiters.push((ev) => { if (ev.kind !== kind) return false; clearTimeout(timer); resolve(ev.data); return true; });
   });
@@ -72,29 +75,71 @@ async function browser() {
     Module._apportion_test_action(ptr);
     Module._free(ptr);
   }, what);
-  const close = async () => { await context.close(); fs.rmSync(profile, { recursive: true, force: true }); };
-  return { page, requests, next, act, close, seen };
+  const positions = async () => { const p = next('positions'); await act('positions'); return p; };
+  const state = async () => { const p = next('state'); await act('state'); return p; };
+  return { page, requests, next, act, positions, state, seen, dialogs };
 }
+
+// A browser with a fresh profile. Device pixel ratio 2 checks HiDPI; frame-rate checks use
+// 1, because headless chromium draws WebGL in software (SwiftShader), where the cost of
+// a frame grows with the pixel count and says nothing about the page's own work.
+async function browser(deviceScaleFactor = 2) {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'apportion-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium', headless: true, args: flags, deviceScaleFactor,
+    acceptDownloads: true, viewport: { width: 1400, height: 860 } });
+  const page = context.pages()[0] || await context.newPage();
+  const close = async () => { await context.close(); fs.rmSync(profile, { recursive: true, force: true }); };
+  return { ...instrument(page), context, close };
+}
+
+async function openFile(b, file, event = 'opened') {
+  const chooser = b.page.waitForEvent('filechooser');
+  await b.act('open');
+  const ev = b.next(event);
+  await (await chooser).setFiles(file);
+  return ev;
+}
+
+// Frames the page draws in `ms`, counted with requestAnimationFrame: frame rate and the
+// longest gap between two frames.
+const frameStats = (page, ms) => page.evaluate((ms) => new Promise((done) => {
+  const t = [];
+  const tick = (now) => { t.push(now); if (now - t[0] < ms) requestAnimationFrame(tick); else {
+    const gaps = t.slice(1).map((x, i) => x - t[i]).sort((a, b) => a - b);
+    done({ fps: (t.length - 1) / ((t[t.length - 1] - t[0]) / 1000), longest: gaps[gaps.length - 1],
+           median: gaps[Math.floor(gaps.length / 2)] });
+  } };
+  requestAnimationFrame(tick);
+}), ms);
 
 const harrowmere = expected('harrowmere-fibre').demands.map((d) => d.share);
 const lowmoor = expected('lowmoor-relief-roads');
 let shareLink = null;
 
 try {
-  // 1. Served page: first frame, the demo's shares equal the command line's.
+  // 1. Served page: first frame, then the demo's shares from the worker equal the command line's.
   {
     const b = await browser();
     const first = b.next('first-frame');
+    const solved = b.next('solved');
     const started = Date.now();
     await b.page.goto(`${base}/apportion.html`);
     const s = await first;
     check('served: first frame drawn', s !== null);
-    if (s) {
-      console.log(`      served: first frame after ${Date.now() - started} ms`);
-      check('served: demo shares equal the command line\'s', s.status === 'optimal' && sameShares(s.shares, harrowmere),
-            JSON.stringify(s.shares));
-      check('served: sharp on HiDPI (device pixel ratio 2 used)', s.dpr === 2);
-    }
+    measurements.first_frame_served_ms = Date.now() - started;
+    console.log(`      served: first frame after ${measurements.first_frame_served_ms} ms`);
+    check('served: sharp on HiDPI (device pixel ratio 2 used)', s && s.dpr === 2);
+    const r = await solved;
+    check('served: demo shares (solved in the worker) equal the command line\'s',
+          r && r.status === 'optimal' && sameShares(r.shares, harrowmere), JSON.stringify(r && r.shares));
+    const csp = await b.page.evaluate(() => {
+      const m = document.querySelector('meta[http-equiv="Content-Security-Policy"]');
+      return m ? m.content : '';
+    });
+    check('page sets a restrictive Content-Security-Policy', csp.includes("default-src 'none'") &&
+          csp.includes("connect-src 'self'") && !csp.includes('*'), csp);
+    await b.page.waitForTimeout(300);
     await b.page.screenshot({ path: path.join(artefacts, 'served.png') });
 
     // 2. Export the shares as CSV and compare with the command line's result.
@@ -106,8 +151,6 @@ try {
     const csvShares = csv.slice(1).map((line) => Number(line.split(',')[col]));
     check(`CSV export: ${download.suggestedFilename()} holds the command line's shares`, sameShares(csvShares, harrowmere),
           JSON.stringify(csvShares));
-
-    // 2b. The picture as SVG (with legend and caution) and as PNG.
     const svgDl = b.page.waitForEvent('download');
     await b.act('export-svg');
     const svg = fs.readFileSync(await (await svgDl).path(), 'utf8');
@@ -116,95 +159,319 @@ try {
     const pngDl = b.page.waitForEvent('download');
     await b.act('export-png');
     const png = fs.readFileSync(await (await pngDl).path());
-    check('PNG export: a PNG image of the canvas', png.length > 1000 &&
-          png.subarray(1, 4).toString() === 'PNG', `${png.length} bytes`);
+    check('PNG export: a PNG image of the canvas', png.length > 1000 && png.subarray(1, 4).toString() === 'PNG',
+          `${png.length} bytes`);
     fs.writeFileSync(path.join(artefacts, 'exported.png'), png);
     fs.writeFileSync(path.join(artefacts, 'exported.svg'), svg);
 
-    // 3. Open another network through the file picker.
-    const chooser = b.page.waitForEvent('filechooser');
-    await b.act('open');
-    const opened = b.next('opened');
-    await (await chooser).setFiles(demoFile('lowmoor-relief-roads'));
-    const o = await opened;
-    check('open: the relief network replaces the demo', o && o.network === lowmoor.network, JSON.stringify(o));
-    check('open: its shares equal the command line\'s',
-          o && sameShares(o.shares, lowmoor.demands.map((d) => d.share)), o && JSON.stringify(o.shares));
+    // 3. Editing on the canvas with the mouse and keyboard, with undo and redo.
+    let pos = await b.positions();
+    const [hx, hy] = pos.nodes.HRW;
+    let sel = b.next('selected');
+    await b.page.mouse.click(hx, hy);
+    let st = await sel;
+    check('canvas: a click selects the node under the mouse', st && st.selection.nodes.join() === 'HRW',
+          JSON.stringify(st && st.selection));
+    await b.page.mouse.move(hx, hy);
+    await b.page.mouse.down();
+    for (let i = 1; i <= 8; i++) await b.page.mouse.move(hx + 5 * i, hy + 4 * i);
+    await b.page.mouse.up();
+    await b.page.waitForTimeout(100);
+    pos = await b.positions();
+    st = await b.state();
+    check('canvas: dragging moves the node', Math.abs(pos.nodes.HRW[0] - (hx + 40)) < 3 &&
+          Math.abs(pos.nodes.HRW[1] - (hy + 32)) < 3 && st.undo === 'move 1 node', JSON.stringify([pos.nodes.HRW, st.undo]));
+    await b.page.keyboard.press('Control+z');
+    await b.page.waitForTimeout(100);
+    pos = await b.positions();
+    check('canvas: Ctrl+Z puts the node back', Math.abs(pos.nodes.HRW[0] - hx) < 1 && Math.abs(pos.nodes.HRW[1] - hy) < 1,
+          JSON.stringify(pos.nodes.HRW));
+    await b.page.keyboard.press('Control+y');
+    await b.page.waitForTimeout(100);
+    pos = await b.positions();
+    check('canvas: Ctrl+Y moves it again', Math.abs(pos.nodes.HRW[0] - (hx + 40)) < 3, JSON.stringify(pos.nodes.HRW));
 
-    // 4. A corrupt file shows an error and keeps the network.
-    const bad = path.join(os.tmpdir(), 'apportion-corrupt.json');
-    fs.writeFileSync(bad, '{"format": "apportion-network", "version": 1, "nodes": [');
-    const chooser2 = b.page.waitForEvent('filechooser');
-    await b.act('open');
-    const failedOpen = b.next('open-failed');
-    await (await chooser2).setFiles(bad);
-    const f = await failedOpen;
+    // Add an arc with the tool: click its tail, then its head; the page re-solves.
+    const before = await b.state();
+    await b.act('tool add-arc');
+    const [cx, cy] = pos.nodes.CAL, [dx, dy] = pos.nodes.DUN;
+    await b.page.mouse.click(cx, cy);
+    const edited = b.next('edited');
+    const resolved = b.next('solved');
+    await b.page.mouse.click(dx, dy);
+    const e1 = await edited;
+    check('add-arc tool: one more arc, CAL to DUN', e1 && e1.arcs === before.arcs + 1 && e1.undo === 'add an arc',
+          JSON.stringify(e1));
+    const r1 = await resolved;
+    check('add-arc tool: the page solves again, and CAL->DUN raises d-north', r1 && r1.status === 'optimal' &&
+          r1.shares[0] > harrowmere[0] + 1e-9, JSON.stringify(r1 && r1.shares));
+    // Delete it with the Delete key; undo brings it back, redo removes it again.
+    await b.act('tool select');
+    let ev = b.next('edited');
+    await b.page.keyboard.press('Delete');
+    let e2 = await ev;
+    check('Delete removes the selected arc', e2 && e2.arcs === before.arcs, JSON.stringify(e2));
+    ev = b.next('edited');
+    await b.page.keyboard.press('Control+z');
+    e2 = await ev;
+    check('undo restores it', e2 && e2.arcs === before.arcs + 1 && e2.redo === 'delete 1 item', JSON.stringify(e2));
+    ev = b.next('edited');
+    let back = b.next('solved');
+    await b.page.keyboard.press('Control+Shift+z');
+    e2 = await ev;
+    const r2 = await back;
+    check('redo removes it again, and the shares are the command line\'s again',
+          e2 && e2.arcs === before.arcs && r2 && sameShares(r2.shares, harrowmere), JSON.stringify(r2 && r2.shares));
+
+    // Add a node where clicked, and select a box of nodes.
+    await b.act('tool add-node');
+    ev = b.next('edited');
+    const box = pos.canvas;
+    await b.page.mouse.click(box[0] + box[2] - 40, box[1] + 40);
+    e2 = await ev;
+    check('add-node tool: a node where clicked', e2 && e2.nodes === before.nodes + 1, JSON.stringify(e2));
+    await b.act('tool select');
+    pos = await b.positions();
+    const box2 = pos.canvas;
+    check('the canvas stays in place when messages appear', box2.join() === box.join(), JSON.stringify([box, box2]));
+    const inBox = Object.entries(pos.nodes).filter(([, [x, y]]) => x < hx + 60 && y < hy + 60 && x > box[0] && y > box[1]);
+    sel = b.next('selected');
+    await b.page.mouse.move(box[0] + 3, box[1] + 3);
+    await b.page.mouse.down();
+    for (let i = 1; i <= 5; i++) await b.page.mouse.move(box[0] + 3 + (hx + 60 - box[0] - 3) * i / 5, box[1] + 3 + (hy + 60 - box[1] - 3) * i / 5);
+    await b.page.mouse.up();
+    st = await sel;
+    check(`box selection: the ${inBox.length} nodes inside the box`, st && inBox.length > 0 &&
+          st.selection.nodes.slice().sort().join() === inBox.map(([id]) => id).sort().join(),
+          JSON.stringify([st && st.selection.nodes, inBox.map(([id]) => id)]));
+    ev = b.next('edited');
+    await b.act('undo');  // the new node goes again
+    await ev;
+
+    // What a failure changes: take an arc out of service; shares drop; the change is shown.
+    await b.act('set arc l1-ab enabled false');
+    const failedShares = await b.next('solved');
+    check('failure what-if: taking l1-ab out changes the shares', failedShares && failedShares.status === 'optimal' &&
+          !sameShares(failedShares.shares, harrowmere), JSON.stringify(failedShares && failedShares.shares));
+    await b.page.screenshot({ path: path.join(artefacts, 'failure-what-if.png') });
+    back = b.next('solved');
+    await b.act('undo');
+    const restoredShares = await back;
+    check('undo of the failure restores the shares', restoredShares && sameShares(restoredShares.shares, harrowmere));
+
+    // An invalid edit is not solved; its message selects the item.
+    ev = b.next('invalid');
+    await b.act('set demand d-east weight 0');
+    const inv = await ev;
+    check('invalid network: not solved, the error is listed', inv && inv.errors.length > 0 &&
+          inv.status === 'not solved', JSON.stringify(inv));
+    sel = b.next('selected');
+    await b.act('select-diagnostic 0');
+    st = await sel;
+    check('clicking the message selects its demand', st && st.selection.demands.join() === 'd-east', JSON.stringify(st));
+    await b.page.screenshot({ path: path.join(artefacts, 'invalid-edit.png') });
+    back = b.next('solved');
+    await b.act('undo');
+    await back;
+
+    // 4. Open another network through the file picker.
+    const openedSolved = b.next('solved');
+    const o = await openFile(b, demoFile('lowmoor-relief-roads'));
+    check('open: the relief network replaces the demo', o && o.network === lowmoor.network, JSON.stringify(o));
+    const os1 = await openedSolved;
+    check('open: its shares equal the command line\'s', os1 && sameShares(os1.shares, lowmoor.demands.map((d) => d.share)),
+          os1 && JSON.stringify(os1.shares));
+
+    // 5. A corrupt file shows an error and keeps the network.
+    const f = await openFile(b, writeTmp('corrupt.json', '{"format": "apportion-network", "version": 1, "nodes": ['), 'open-failed');
     check('corrupt file: an error is shown', f && f.messages.length > 0, JSON.stringify(f));
     check('corrupt file: the network is unchanged', f && f.network === lowmoor.network);
     await b.page.screenshot({ path: path.join(artefacts, 'corrupt-file.png') });
 
-    // 5. Share link.
+    // 6. Share link.
     const linkEvent = b.next('share-link');
     await b.act('share-link');
     shareLink = await linkEvent;
     check('share link: made, with the network in the fragment only', typeof shareLink === 'string' &&
           shareLink.startsWith(`${base}/apportion.html#n=`), String(shareLink));
 
-    // 6. Autosave: a reload restores the relief network.
+    // 7. Autosave: a reload restores the relief network; earlier versions are kept.
+    const versions = JSON.parse(await b.page.evaluate(() => apportionBridge.autosaveList()));
+    check('autosave keeps earlier versions (newest first)', versions.length >= 2 && versions.length <= 5 &&
+          versions[0].time >= versions[1].time, JSON.stringify(versions.map((v) => [v.name, v.time])));
     const restored = b.next('opened');
     await b.page.goto(`${base}/apportion.html`);
-    const r = await restored;
-    check('autosave: a reload restores the network', r && r.network === lowmoor.network && r.source === 'autosaved',
-          JSON.stringify(r));
+    const rr = await restored;
+    check('autosave: a reload restores the network', rr && rr.network === lowmoor.network && rr.source === 'autosaved',
+          JSON.stringify(rr));
     const foreign = b.requests.filter((u) => !u.startsWith(base) && !u.startsWith('data:') && !u.startsWith('blob:'));
     check('nothing leaves the machine', foreign.length === 0, foreign.join(' '));
+
+    // 8. Two tabs: the second tab's save is noticed by the first, and both versions are kept.
+    const other = instrument(await b.context.newPage());
+    const otherOpened = other.next('opened');
+    await other.page.goto(`${base}/apportion.html`);
+    await otherOpened;
+    const firstTabSaved = b.next('edited');
+    await b.act('set node depot label first tab');   // tab 1 saves
+    await firstTabSaved;
+    const warned = b.next('other-tab-saved', 10000);
+    await other.act('set node depot label second tab');  // tab 2 saves over it
+    const w = await warned;
+    check('two tabs: the first tab is warned when the second saves', w !== null && w.other_tab_saved === true,
+          JSON.stringify(w));
+    const tabs = JSON.parse(await b.page.evaluate(() => apportionBridge.autosaveList()));
+    check('two tabs: both tabs\' versions are kept', new Set(tabs.map((v) => v.tab)).size >= 2, JSON.stringify(tabs));
+    await other.page.close();
+
+    // 9. A full storage is reported, not silent.
+    await b.page.evaluate(() => {
+      Storage.prototype.setItem = function () { throw new DOMException('full', 'QuotaExceededError'); };
+    });
+    const quota = b.next('autosave-failed', 10000);
+    await b.act('set node depot label storage is full');
+    const q = await quota;
+    check('autosave: a full storage is reported in the page', q && q.notice.includes('Autosave failed'), JSON.stringify(q));
     await b.close();
   }
 
-  // 7. The share link in a fresh browser profile restores the same network and shares.
+  // 10. The share link in a fresh browser profile restores the same network and shares.
   if (shareLink) {
     const b = await browser();
     const opened = b.next('opened');
+    const solved = b.next('solved');
     await b.page.goto(shareLink);
     const o = await opened;
     check('share link: a fresh profile opens the shared network', o && o.network === lowmoor.network &&
           o.source === 'from a share link', JSON.stringify(o));
-    check('share link: the same shares', o && sameShares(o.shares, lowmoor.demands.map((d) => d.share)));
+    const s = await solved;
+    check('share link: the same shares', s && sameShares(s.shares, lowmoor.demands.map((d) => d.share)));
     await b.page.screenshot({ path: path.join(artefacts, 'share-link.png') });
     await b.close();
   }
 
-  // 8. A broken share link shows an error and keeps the demo.
+  // 11. A broken share link shows an error and keeps the demo.
   {
     const b = await browser();
     const failedOpen = b.next('open-failed');
     await b.page.goto(`${base}/apportion.html#n=not-a-network`);
     const f = await failedOpen;
     check('broken share link: an error is shown, the demo stays', f && f.messages.length > 0 &&
-          sameShares(f.shares, harrowmere), JSON.stringify(f));
+          f.network === expected('harrowmere-fibre').network, JSON.stringify(f));
     await b.close();
   }
 
-  // 9. The single file from file://.
+  // 12. Cancel stops a long solve, and the page keeps drawing while it runs.
+  {
+    const b = await browser(1);
+    await b.page.goto(`${base}/apportion.html`);
+    await b.next('solved');
+    const progress = b.next('progress', 120000);
+    const started = b.next('solve-started');
+    await openFile(b, writeTmp('long-solve.json', grid(14, 220, 7, 'Long solve test grid')));
+    await started;
+    const frames = frameStats(b.page, 2000);
+    const p = await progress;
+    check('long solve: progress is reported', p !== null && p.solving === true, JSON.stringify(p));
+    const fs1 = await frames;
+    measurements.frames_while_solving = fs1;
+    check(`long solve: the page keeps drawing (${fs1.fps.toFixed(0)} fps, longest frame gap ${fs1.longest.toFixed(0)} ms)`,
+          fs1.fps >= 5 && fs1.longest < 500, JSON.stringify(fs1));
+    const cancelled = b.next('cancelled');
+    await b.act('cancel');
+    const c = await cancelled;
+    const late = b.next('solved', 3000);
+    const l = await late;
+    const st = await b.state();
+    check('cancel stops the solve, the network stays', c && c.solving === false && l === null &&
+          st.network === 'Long solve test grid' && st.status === 'not solved', JSON.stringify([c, l, st.status]));
+    await b.page.screenshot({ path: path.join(artefacts, 'cancelled.png') });
+    await b.close();
+  }
+
+  // 13. Hostile names: shown as text, exported harmlessly.
+  {
+    const b = await browser();
+    await b.page.goto(`${base}/apportion.html`);
+    await b.next('solved');
+    const solved = b.next('solved');
+    const o = await openFile(b, writeTmp('hostile.json', hostile()));
+    check('hostile names: the network opens', o && o.network === '<b>hostile</b>', JSON.stringify(o));
+    await solved;
+    await b.page.waitForTimeout(300);
+    const pwned = await b.page.evaluate(() => window.__pwned);
+    const nodesInDom = await b.page.evaluate(() => document.querySelectorAll('script:not([type]), svg, img').length);
+    check('hostile names: no script runs, no markup reaches the page', pwned === undefined && b.dialogs.length === 0,
+          JSON.stringify([pwned, b.dialogs, nodesInDom]));
+    const svgDl = b.page.waitForEvent('download');
+    await b.act('export-svg');
+    const svg = fs.readFileSync(await (await svgDl).path(), 'utf8');
+    check('hostile names: the SVG escapes them', !svg.includes('<script') && !svg.includes('<img') &&
+          svg.includes('&lt;script&gt;') && !/[\u0000-\u0008\u000b\u001b]/.test(svg));
+    const csvDl = b.page.waitForEvent('download');
+    await b.act('export-arcs-csv');
+    const csv = fs.readFileSync(await (await csvDl).path(), 'utf8');
+    check('hostile names: the CSV neutralises formulas', csv.includes("'+cmd|calc") && csv.includes("'-2+3") &&
+          !/(^|,)[=+@-][^,]*/m.test(csv.replace(/(^|,)-?[0-9.e+-]+(?=,|$)/gm, '$1')), csv);
+    const demandsDl = b.page.waitForEvent('download');
+    await b.act('export-demands-csv');
+    const dcsv = fs.readFileSync(await (await demandsDl).path(), 'utf8');
+    check('hostile names: demand ids and labels in CSV are neutralised', dcsv.includes("'=1+2"), dcsv);
+    await b.page.screenshot({ path: path.join(artefacts, 'hostile-names.png') });
+    await b.close();
+  }
+
+  // 14. Frame rate animating a generated network of 5,000 arcs (measured, reported).
+  {
+    const b = await browser(1);
+    await b.page.goto(`${base}/apportion.html`);
+    await b.next('solved');
+    const solved = b.next('solved', 300000);
+    await openFile(b, writeTmp('five-thousand-arcs.json', grid(36, 12, 11, 'Frame rate test grid', 6)));
+    const s = await solved;
+    const st = await b.state();
+    check('5,000-arc network: opened and solved', s && s.status === 'optimal' && st.arcs >= 5000, JSON.stringify([st.arcs, s && s.status]));
+    const fr = await frameStats(b.page, 3000);
+    const pos = await b.positions();
+    measurements.animation_5000_arcs = { arcs: st.arcs, ...fr, canvas_build_ms: pos.canvas_ms };
+    console.log(`      5,000 arcs: ${fr.fps.toFixed(1)} fps (median frame ${fr.median.toFixed(1)} ms, canvas built in ${pos.canvas_ms.toFixed(1)} ms)`);
+    check('5,000-arc network: the page animates it', fr.fps > 0, JSON.stringify(fr));
+    await b.page.screenshot({ path: path.join(artefacts, 'five-thousand-arcs.png') });
+    await b.close();
+  }
+
+  // 15. The single file from file://.
   {
     const b = await browser();
     const first = b.next('first-frame');
+    const solved = b.next('solved');
     const started = Date.now();
     await b.page.goto('file://' + path.join(webDir, 'apportion-single.html'));
     const s = await first;
     check('single file: first frame drawn from file://', s !== null);
-    if (s) {
-      console.log(`      single file: first frame after ${Date.now() - started} ms`);
-      check('single file: demo shares equal the command line\'s', sameShares(s.shares, harrowmere));
-    }
+    measurements.first_frame_single_file_ms = Date.now() - started;
+    console.log(`      single file: first frame after ${measurements.first_frame_single_file_ms} ms`);
+    const r = await solved;
+    check('single file: demo shares (worker from a Blob URL) equal the command line\'s',
+          r && sameShares(r.shares, harrowmere), JSON.stringify(r));
     await b.page.waitForTimeout(300);
     await b.page.screenshot({ path: path.join(artefacts, 'single-file.png') });
-    const foreign = b.requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:'));
+    const foreign = b.requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:') && !u.startsWith('blob:'));
     check('single file: no request leaves the machine', foreign.length === 0, foreign.join(' '));
+    // The policy is enforced, not just written: a request to another machine is refused.
+    const blocked = await b.page.evaluate(() => new Promise((done) => {
+      document.addEventListener('securitypolicyviolation', (e) => done(e.violatedDirective), { once: true });
+      fetch('http://192.0.2.1/x').catch(() => {});
+      setTimeout(() => done(null), 2000);
+    }));
+    check('single file: the policy refuses outside connections', blocked === 'connect-src', String(blocked));
+    measurements.single_file_bytes = fs.statSync(path.join(webDir, 'apportion-single.html')).size;
     await b.close();
   }
 } finally {
   server.close();
+  fs.writeFileSync(path.join(artefacts, 'measurements.json'), JSON.stringify(measurements, null, 2) + '\n');
+  fs.rmSync(tmp, { recursive: true, force: true });
 }
 console.log(`${passed} passed, ${failed} failed`);
 process.exit(failed ? 1 : 0);

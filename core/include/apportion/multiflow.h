@@ -21,6 +21,7 @@
 //   kTradeoff        maximise sum_k f_k subject to f_k >= (1 - epsilon) * (max-min share of k)
 #pragma once
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -37,12 +38,23 @@ struct RoutingOptions {
   int k_paths = 0;    // > 0: only the k shortest paths of each demand (by route length)
 };
 
+// Reported after every LP of a solve, so that a caller can show progress (the browser app
+// runs the engine in a worker and forwards these).
+struct SolveProgress {
+  const char* stage = "";   // "max-min fair", "max throughput", ...
+  int round = 0;            // max-min: the tier being raised
+  int demands_settled = 0;  // max-min: demands frozen so far
+  int demands = 0;
+  int lp_solves = 0;
+};
+
 struct FairOptions {
   FairObjective objective = FairObjective::kMaxMinFair;
   RoutingOptions routing;
   double epsilon = 0.1;     // kTradeoff: each demand keeps at least (1 - epsilon) of its fair share
   bool compare_throughput = true;  // kMaxMinFair: also solve max throughput for the price of fairness
   bool hot_start = true;    // false only to measure what restarting from the last basis saves
+  std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 
 struct PathShare {

@@ -7,6 +7,7 @@
 
 #include <string>
 #include <utility>
+#include <vector>
 
 #include "apportion/multiflow.h"
 #include "apportion/network.h"
@@ -28,12 +29,16 @@ struct Layout {
 };
 Layout fit_layout(const Network& net, double width, double height, double margin, double label_room);
 
-// Where arc `a` is drawn between its end points: arcs that have a reverse twin (an arc
-// from `to` to `from`) are shifted to their own side by `offset`.
+// Per arc: 1 when a reverse twin exists (an arc from its `to` to its `from`), so that both
+// directions of a pair are drawn side by side. Shared two-way arcs have no twin. O(m).
+std::vector<char> arcs_with_twin(const Network& net);
+
+// Where an arc is drawn between its end points: shifted to its own side by `offset` when it
+// has a twin.
 struct ArcGeometry {
   float x0, y0, x1, y1, length;
 };
-ArcGeometry arc_geometry(const Network& net, int a, float x0, float y0, float x1, float y1, float offset);
+ArcGeometry arc_geometry(bool has_twin, float x0, float y0, float x1, float y1, float offset);
 
 std::string xml_escape(const std::string& text);
 

@@ -1,0 +1,13 @@
+// The page's panels around the canvas, each drawn from the App state every frame.
+#pragma once
+
+namespace apportion::web {
+
+void draw_toolbar();       // files, exports, undo/redo, tools, search, rule and solve controls
+void draw_notices();       // open errors, validation messages (click to select), events
+void draw_result_panel();  // totals, filter, the shares table
+void draw_demand_table();  // the demands, editable
+void draw_inspector();     // the selected items, editable
+void draw_charts();        // shares sorted with tiers marked; arc utilisation
+
+}  // namespace apportion::web
