@@ -11,6 +11,7 @@ packages=(
   build-essential cmake ninja-build python3 ca-certificates xz-utils curl
   nlohmann-json3-dev catch2            # JSON parsing; the test framework
   emscripten                           # WebAssembly toolchain (3.1.6, clang 14)
+  clang-14 libclang-rt-14-dev          # libFuzzer with the sanitizers (shell/fuzz.sh)
   python3-networkx python3-scipy glpk-utils liblemon-dev  # outside references for tests and benchmark
 )
 if [ "${APPORTION_WITH_BROWSER:-0}" = 1 ]; then packages+=(chromium); fi

@@ -1,12 +1,13 @@
 #!/usr/bin/env bash
 # The README's test command: installs what is missing, builds every preset and runs every
 # test -- native (release, and debug with sanitizers), WebAssembly under node, the
-# cross-checks against outside libraries, the command-line tests and the browser tests.
+# cross-checks against outside libraries, the command-line tests, a seeded smoke run of
+# every fuzz target and the browser tests.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 APPORTION_WITH_BROWSER=1 "$root/shell/deps.sh"
-"$root/shell/build.sh" native native-debug wasm
+"$root/shell/build.sh" native native-debug wasm fuzz
 
 status=0
 for preset in native native-debug wasm; do
@@ -16,6 +17,9 @@ for preset in native native-debug wasm; do
   label=(); [ "$preset" = native-debug ] && label=(-LE reference)
   ctest --preset "$preset" -j2 "${label[@]}" || status=1
 done
+
+echo "apportion: fuzzing smoke run (seeded, 2,000 inputs per target)"
+"$root/shell/fuzz.sh" --smoke || status=1
 
 echo "apportion: browser tests"
 (cd tests/browser && npm ci --no-audit --no-fund --silent) || { echo "apportion: npm ci failed" >&2; exit 1; }

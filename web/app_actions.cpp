@@ -59,7 +59,7 @@ std::string state_json(const char* event) {
   for (int e : a.selection.arcs) sel["arcs"].push_back(a.doc.arcs[e].id);
   for (int k : a.selection.demands) sel["demands"].push_back(a.doc.demands[k].id);
   s["selection"] = sel;
-  return s.dump();
+  return s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
 }
 
 std::string file_stem() {
@@ -135,7 +135,7 @@ void request_solve() {
                             {"epsilon", a.options.epsilon}, {"hop_limit", a.options.routing.hop_limit},
                             {"k_paths", a.options.routing.k_paths}};
   a.notice.clear();
-  start_solve(s.id, request.dump());
+  start_solve(s.id, request.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace));
   report("solve-started");
 }
 

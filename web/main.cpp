@@ -138,7 +138,7 @@ void report_positions() {
                       {"canvas", {a.view.canvas_x, a.view.canvas_y, a.view.canvas_w, a.view.canvas_h}},
                       {"canvas_ms", a.view.frame_ms},
                       {"fps", ImGui::GetIO().Framerate}};
-  std::printf("apportion:positions %s\n", s.dump().c_str());
+  std::printf("apportion:positions %s\n", s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace).c_str());
 }
 
 void frame() {

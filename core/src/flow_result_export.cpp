@@ -64,7 +64,7 @@ std::string max_flow_json(const Network& net, const std::vector<int>& sources, c
   } else {
     root["message"] = r.message;
   }
-  return root.dump(2) + "\n";
+  return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
 }
 
 std::string min_cost_flow_json(const Network& net, const MinCostFlowResult& r) {
@@ -83,7 +83,7 @@ std::string min_cost_flow_json(const Network& net, const MinCostFlowResult& r) {
   } else {
     root["message"] = r.message;
   }
-  return root.dump(2) + "\n";
+  return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
 }
 
 std::string arc_flow_csv(const Network& net, const std::vector<double>& flow, const std::vector<int>* cut_arcs) {

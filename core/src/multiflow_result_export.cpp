@@ -39,7 +39,7 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
   root["caution"] = kPlanningCaution;
   if (r.status != SolveStatus::kOptimal) {
     root["message"] = r.message;
-    return root.dump(2) + "\n";
+    return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
   }
   root["totals"] = {{"throughput", r.throughput},
                     {"min_normalised_share", r.min_normalised_share},
@@ -111,7 +111,7 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
   root["stats"] = {{"lp_solves", r.stats.lp_solves}, {"simplex_iterations", r.stats.simplex_iterations},
                    {"pricing_rounds", r.stats.pricing_rounds}, {"path_columns", r.stats.path_columns},
                    {"saturation_tests", r.stats.saturation_tests}};
-  return root.dump(2) + "\n";
+  return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
 }
 
 std::string multiflow_demands_csv(const Network& net, const MultiflowResult& r) {

@@ -1,6 +1,7 @@
 // DIMACS max-flow and min-cost-flow files; see network_dimacs.h.
 #include "apportion/network_dimacs.h"
 
+#include <cmath>
 #include <sstream>
 #include <unordered_map>
 
@@ -82,7 +83,8 @@ LoadResult read_dimacs(const std::string& text) {
   auto node_index = [&](const std::string& tok, const char* field) -> int {
     std::string why;
     auto v = parse_number(tok, &why);
-    if (!v || *v != static_cast<long long>(*v) || *v < 1 || *v > net.node_count()) {
+    // Range first: converting a huge double to an integer is undefined behaviour.
+    if (!v || *v < 1 || *v > net.node_count() || *v != std::floor(*v)) {
       d.error("line", where(), field, "'" + tok + "' is not a node number between 1 and " +
                                           std::to_string(net.node_count()));
       return -1;

@@ -329,7 +329,7 @@ std::string write_network_json(const Network& net) {
   root["demands"] = std::move(demands);
   json meta = json::parse(net.metadata_json, nullptr, false);
   root["metadata"] = (meta.is_discarded() || !meta.is_object()) ? json::object() : meta;
-  return root.dump(2) + "\n";
+  return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
 }
 
 }  // namespace apportion

@@ -12,8 +12,22 @@ namespace apportion {
 
 namespace {
 
+// Items whose id is empty or not text are named by their position, so that messages stay
+// printable and can be written into JSON.
 std::string item_name(const std::string& id, std::size_t index) {
-  return id.empty() ? "#" + std::to_string(index + 1) : id;
+  return id.empty() || !valid_utf8(id) ? "#" + std::to_string(index + 1) : id;
+}
+
+// Every text field must be UTF-8 (RFC 3629): files from elsewhere in another encoding are
+// refused by name rather than written into JSON and shared links they would break.
+template <class Items>
+void check_text(const Items& items, const char* kind, Diagnostics& out) {
+  for (std::size_t i = 0; i < items.size(); ++i) {
+    if (!valid_utf8(items[i].id))
+      out.error(kind, item_name(items[i].id, i), "id", "is not UTF-8 text (save the file as UTF-8)");
+    if (!valid_utf8(items[i].label))
+      out.error(kind, item_name(items[i].id, i), "label", "is not UTF-8 text (save the file as UTF-8)");
+  }
 }
 
 template <class Items>
@@ -24,7 +38,7 @@ void check_ids(const Items& items, const char* kind, Diagnostics& out) {
     if (id.empty()) {
       out.error(kind, item_name(id, i), "id", "the id is empty");
     } else if (!seen.insert(id).second) {
-      out.error(kind, id, "id", "duplicate id");
+      out.error(kind, item_name(id, i), "id", "duplicate id");
     }
     if (id.size() > SizeLimits::kMaxStringLength)
       out.error(kind, item_name("", i), "id", "longer than " + std::to_string(SizeLimits::kMaxStringLength) + " characters");
@@ -47,6 +61,30 @@ void check_number(double v, bool nonnegative, const char* kind, const std::strin
 
 }  // namespace
 
+bool valid_utf8(const std::string& s) {
+  const auto* p = reinterpret_cast<const unsigned char*>(s.data());
+  const std::size_t n = s.size();
+  for (std::size_t i = 0; i < n;) {
+    const unsigned char c = p[i];
+    std::size_t len = 0;
+    unsigned min = 0;
+    if (c < 0x80) len = 1;
+    else if ((c & 0xE0) == 0xC0) len = 2, min = 0x80;
+    else if ((c & 0xF0) == 0xE0) len = 3, min = 0x800;
+    else if ((c & 0xF8) == 0xF0) len = 4, min = 0x10000;
+    else return false;
+    if (i + len > n) return false;
+    unsigned cp = len == 1 ? c : c & (0x7F >> len);
+    for (std::size_t k = 1; k < len; ++k) {
+      if ((p[i + k] & 0xC0) != 0x80) return false;
+      cp = (cp << 6) | (p[i + k] & 0x3F);
+    }
+    if (len > 1 && (cp < min || cp > 0x10FFFF || (cp >= 0xD800 && cp <= 0xDFFF))) return false;  // overlong, surrogate
+    i += len;
+  }
+  return true;
+}
+
 Diagnostics validate(const Network& net) {
   Diagnostics out;
   const int n = net.node_count();
@@ -60,6 +98,13 @@ Diagnostics validate(const Network& net) {
   check_ids(net.nodes, "node", out);
   check_ids(net.arcs, "arc", out);
   check_ids(net.demands, "demand", out);
+  check_text(net.nodes, "node", out);
+  check_text(net.demands, "demand", out);
+  for (std::size_t i = 0; i < net.arcs.size(); ++i)
+    if (!valid_utf8(net.arcs[i].id))
+      out.error("arc", item_name(net.arcs[i].id, i), "id", "is not UTF-8 text (save the file as UTF-8)");
+  for (const std::string* text : {&net.name, &net.units.capacity, &net.units.cost, &net.units.time})
+    if (!valid_utf8(*text)) out.error("file", "", "name or units", "is not UTF-8 text (save the file as UTF-8)");
 
   std::vector<int> degree(n, 0);
   for (std::size_t i = 0; i < net.nodes.size(); ++i) {

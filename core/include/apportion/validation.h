@@ -3,10 +3,13 @@
 // Errors (the document is not solved): duplicate ids, node references out of range,
 // negative, NaN or infinite numbers where finite non-negative ones are required, a demand
 // whose origin is its destination, non-positive weights, shared two-way links with a
-// negative cost, and the size limits of size_limits.h.
+// negative cost, ids, labels, names and units that are not UTF-8 text, and the size limits
+// of size_limits.h.
 // Warnings (solved anyway): self-loops, zero-capacity arcs, isolated nodes, and demands
 // whose destination cannot be reached from their origin over enabled arcs.
 #pragma once
+
+#include <string>
 
 #include "apportion/diagnostics.h"
 #include "apportion/network.h"
@@ -14,5 +17,8 @@
 namespace apportion {
 
 Diagnostics validate(const Network& net);
+
+// True when `text` is well-formed UTF-8 (RFC 3629: no overlong forms, no surrogates).
+bool valid_utf8(const std::string& text);
 
 }  // namespace apportion

@@ -1,0 +1,75 @@
+#!/usr/bin/env bash
+# fuzz.sh [--smoke | --seconds N]: builds the libFuzzer targets (preset `fuzz`: clang with
+# AddressSanitizer and UBSan), makes seed corpora from the demo networks (converted to every
+# format by the command line), and runs each target.
+#   --smoke      deterministic short run (seed 1, 2,000 inputs per target); part of test.sh
+#   --seconds N  each target for N seconds (default 60), corpora kept in build/fuzz/corpus
+# A finding stops the run with the target's report and leaves the input as crash-* / leak-*
+# / timeout-* in build/fuzz/findings; add it as a regression test.
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+mode=${1:---seconds}
+seconds=${2:-60}
+"$root/shell/build.sh" native fuzz >/dev/null
+
+cli=build/native/shell/apportion
+corpus=build/fuzz/corpus
+findings=build/fuzz/findings
+[ "$mode" = --smoke ] && rm -rf "$corpus"
+mkdir -p "$findings"
+for t in json csv dimacs graphml payload solve result; do mkdir -p "$corpus/$t"; done
+work=$(mktemp -d); trap 'rm -rf "$work"' EXIT
+for demo in demo-networks/*.json; do
+  name=$(basename "$demo" .json)
+  cp "$demo" "$corpus/json/$name.json"
+  cp "$demo" "$corpus/solve/$name.json"
+  $cli convert "$demo" --to csv "$work/$name" >/dev/null
+  { cat "$work/$name.nodes.csv"; printf '\f'; cat "$work/$name.arcs.csv"; printf '\f'; cat "$work/$name.demands.csv"; } \
+    > "$corpus/csv/$name.csv"
+  $cli convert "$demo" --to dimacs-max "$work/$name.max" >/dev/null 2>&1 && cp "$work/$name.max" "$corpus/dimacs/"
+  $cli convert "$demo" --to dimacs-min "$work/$name.min" >/dev/null 2>&1 && cp "$work/$name.min" "$corpus/dimacs/"
+  python3 -c 'import json, sys; print(json.dumps({"source": "link", "files": [{"name": "n.json", "text": open(sys.argv[1]).read()}]}))' \
+    "$demo" > "$corpus/payload/$name.json"
+done
+# A small GraphML file (invented) and a result file of the network the result target uses.
+cat > "$corpus/graphml/small.graphml" <<'XML'
+<?xml version="1.0" encoding="UTF-8"?>
+<graphml xmlns="http://graphml.graphdrawing.org/xmlns">
+  <key id="cap" for="edge" attr.name="capacity" attr.type="double"/>
+  <key id="lbl" for="node" attr.name="label" attr.type="string"/>
+  <graph id="g" edgedefault="directed">
+    <node id="a"><data key="lbl">Alder Cross</data></node>
+    <node id="b"/><node id="c"/>
+    <edge id="ab" source="a" target="b"><data key="cap">5</data></edge>
+    <edge id="bc" source="b" target="c"><data key="cap">7.5</data></edge>
+    <edge source="c" target="a"/>
+  </graph>
+</graphml>
+XML
+cat > "$work/abc.json" <<'JSON'
+{"format": "apportion-network", "version": 1, "nodes": [{"id": "a", "x": 0, "y": 0}, {"id": "b", "x": 0, "y": 0},
+ {"id": "c", "x": 0, "y": 0}], "arcs": [{"id": "ab", "from": "a", "to": "b", "capacity": 5},
+ {"id": "bc", "from": "b", "to": "c", "capacity": 5}], "demands": [{"id": "d", "origin": "a", "destination": "c", "amount": "max"}]}
+JSON
+for rule in fair concurrent throughput feasible; do $cli $rule "$work/abc.json" --json "$corpus/result/$rule.json" >/dev/null 2>&1 || true; done
+
+status=0
+for t in json csv dimacs graphml payload solve result; do
+  if [ "$mode" = --smoke ]; then
+    args=(-seed=1 -runs=2000)
+  else
+    args=(-max_total_time="$seconds")
+  fi
+  log="$work/$t.log"
+  if build/fuzz/tests/fuzz/fuzz_$t "${args[@]}" -max_len=65536 -timeout=20 -rss_limit_mb=2048 -print_final_stats=1 \
+       -artifact_prefix="$findings/$t-" "$corpus/$t" >"$log" 2>&1; then
+    runs=$(grep -o 'stat::number_of_executed_units: [0-9]*' "$log" | awk '{print $2}' || true)
+    echo "apportion: fuzz $t: ${runs:-?} inputs, no findings"
+  else
+    echo "apportion: fuzz $t FOUND A PROBLEM:" >&2
+    tail -40 "$log" >&2
+    status=1
+  fi
+done
+exit $status
