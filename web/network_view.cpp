@@ -31,7 +31,6 @@ float distance_to_segment(ImVec2 p, ImVec2 a, ImVec2 b) {
   return std::sqrt(ex * ex + ey * ey);
 }
 
-bool contains(const std::vector<int>& v, int x) { return std::find(v.begin(), v.end(), x) != v.end(); }
 
 }  // namespace
 
@@ -116,6 +115,13 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   double max_cap = 0;
   for (const Arc& a : net.arcs) max_cap = std::max(max_cap, a.capacity);
   const std::vector<char> twin = arcs_with_twin(net);
+  // Per-arc marks, so that each arc is looked up once, not searched for in the selection.
+  std::vector<char> arc_selected(net.arcs.size(), 0), arc_binding(net.arcs.size(), 0);
+  for (int e : selection.arcs)
+    if (e >= 0 && e < net.arc_count()) arc_selected[e] = 1;
+  if (binding)
+    for (int e : *binding)
+      if (e >= 0 && e < net.arc_count()) arc_binding[e] = 1;
   const float time = static_cast<float>(ImGui::GetTime());
   int hover_arc = -1;
   float best = 8 * ui_scale;
@@ -135,8 +141,8 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     if (load)
       for (auto [k, f] : load->per_demand)
         if (in_focus(k)) focus_flow += f;
-    if (contains(selection.arcs, a)) dl->AddLine(p, q, kSelected, width + 6 * ui_scale);
-    if (binding && contains(*binding, a)) dl->AddLine(p, q, kBinding, width + 4 * ui_scale);
+    if (arc_selected[a]) dl->AddLine(p, q, kSelected, width + 6 * ui_scale);
+    if (arc_binding[a]) dl->AddLine(p, q, kBinding, width + 4 * ui_scale);
     ImU32 colour;
     if (!arc.enabled) colour = IM_COL32(100, 100, 100, 128);
     else if (filtering) colour = focus_flow != 0 ? kFocus : IM_COL32(140, 150, 165, 64);
@@ -169,11 +175,14 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   // Nodes; labels stay the same size on screen, and are left out when too dense to read.
   const bool dense = net.node_count() > 0 &&
                      avail.x * avail.y / net.node_count() < 2500 * ui_scale * ui_scale * (1.0f / (view.zoom * view.zoom));
+  std::vector<char> node_selected(net.nodes.size(), 0);
+  for (int v : selection.nodes)
+    if (v >= 0 && v < net.node_count()) node_selected[v] = 1;
   for (int v = 0; v < net.node_count(); ++v) {
     const ImVec2 c = at(v);
     if (c.x < origin.x - 50 || c.x > origin.x + avail.x + 50 || c.y < origin.y - 50 || c.y > origin.y + avail.y + 50)
       continue;
-    const bool selected = contains(selection.nodes, v);
+    const bool selected = node_selected[v];
     const bool match = v < static_cast<int>(highlight.size()) && highlight[v];
     if (match) dl->AddCircle(c, node_r + 6 * ui_scale, kMatch, 0, 2.5f * ui_scale);
     if (selected || v == view.pending_from) dl->AddCircleFilled(c, node_r + 3 * ui_scale, kSelected);
@@ -226,12 +235,13 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     if (released) {
       in.box_done = true;
       in.additive = io.KeyShift;
+      std::vector<char> inside(net.nodes.size(), 0);
       for (int v = 0; v < net.node_count(); ++v) {
         const float x = view.node_screen[2 * v], y = view.node_screen[2 * v + 1];
-        if (x >= a.x && x <= b.x && y >= a.y && y <= b.y) in.box.nodes.push_back(v);
+        if (x >= a.x && x <= b.x && y >= a.y && y <= b.y) in.box.nodes.push_back(v), inside[v] = 1;
       }
       for (int e = 0; e < net.arc_count(); ++e)
-        if (contains(in.box.nodes, net.arcs[e].from) && contains(in.box.nodes, net.arcs[e].to)) in.box.arcs.push_back(e);
+        if (inside[net.arcs[e].from] && inside[net.arcs[e].to]) in.box.arcs.push_back(e);
       view.boxing = false;
     }
   } else if (view.moving) {

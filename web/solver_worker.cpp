@@ -42,9 +42,7 @@ std::string solve(int id, const char* request_text) {
   if (d.has_errors()) return failure("the network has errors; validate it first");
   FairOptions options;
   const std::string objective = request.value("objective", std::string("max-min-fair"));
-  for (FairObjective o : {FairObjective::kFeasibility, FairObjective::kMaxThroughput, FairObjective::kMaxConcurrent,
-                          FairObjective::kMaxMinFair, FairObjective::kTradeoff})
-    if (objective == objective_name(o)) options.objective = o;
+  objective_from_name(objective, options.objective);
   options.epsilon = request.value("epsilon", 0.1);
   options.routing.hop_limit = request.value("hop_limit", 0);
   options.routing.k_paths = request.value("k_paths", 0);

@@ -23,6 +23,13 @@ const char* objective_name(FairObjective o) {
   return "unknown";
 }
 
+bool objective_from_name(const std::string& name, FairObjective& out) {
+  for (FairObjective o : {FairObjective::kFeasibility, FairObjective::kMaxThroughput, FairObjective::kMaxConcurrent,
+                          FairObjective::kMaxMinFair, FairObjective::kTradeoff})
+    if (name == objective_name(o)) return out = o, true;
+  return false;
+}
+
 namespace {
 
 constexpr double kInf = LpSolver::kInf;

@@ -95,13 +95,9 @@ std::optional<MultiflowResult> read_multiflow_json(const Network& net, const std
     return give_up("it is not an Apportion fair-multiflow result");
   MultiflowResult r;
   const std::string objective = text_of(root, "objective");
-  bool known = false;
-  for (FairObjective o : {FairObjective::kFeasibility, FairObjective::kMaxThroughput, FairObjective::kMaxConcurrent,
-                          FairObjective::kMaxMinFair, FairObjective::kTradeoff})
-    if (objective == objective_name(o)) r.objective = o, known = true;
-  if (!known) return give_up("unknown objective '" + objective + "'");
+  if (!objective_from_name(objective, r.objective)) return give_up("unknown objective '" + objective + "'");
   const std::string status = text_of(root, "status");
-  known = false;
+  bool known = false;
   for (SolveStatus s : {SolveStatus::kOptimal, SolveStatus::kInfeasible, SolveStatus::kUnbounded, SolveStatus::kBadInput,
                         SolveStatus::kNumericalDifficulty, SolveStatus::kNotSolved})
     if (status == status_name(s)) r.status = s, known = true;

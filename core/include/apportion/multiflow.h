@@ -32,6 +32,8 @@ namespace apportion {
 
 enum class FairObjective { kFeasibility, kMaxThroughput, kMaxConcurrent, kMaxMinFair, kTradeoff };
 const char* objective_name(FairObjective o);
+// The objective with this name (objective_name's inverse); false when there is none.
+bool objective_from_name(const std::string& name, FairObjective& out);
 
 struct RoutingOptions {
   int hop_limit = 0;  // > 0: paths of at most this many arcs
