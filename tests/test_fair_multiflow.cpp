@@ -183,6 +183,37 @@ TEST_CASE("max-min: hand-derived tiers", "[fair]") {
   }
 }
 
+TEST_CASE("max-min: every share is judged at its own scale", "[fair][numerics]") {
+  // A 0.001 arc feeding a 1e9 arc (12 orders of magnitude apart):
+  //   0 -(0.001)-> 1 -(1e9)-> 2,   3 -(2e9)-> 1;   d0: 0->2, d1: 3->2.
+  // Derived by hand: d0 is stopped by its own arc at 0.001 (tier 1); d1 takes the rest of
+  // the shared 1e9 arc, 1e9 - 0.001 (tier 2).
+  // Before shares were judged per demand, a global tolerance (1e-9 of 2e9 = 2) reported
+  // d0 as 0.
+  Builder b(4);
+  b.arc(0, 1, 0.001).arc(1, 2, 1e9).arc(3, 1, 2e9).demand(0, 2).demand(3, 2);
+  const MultiflowResult r = fair(b.net);
+  CHECK_THAT(r.demands[0].share, WithinAbs(0.001, 1e-15));
+  CHECK_THAT(r.demands[1].share, WithinAbs(1e9 - 0.001, 1e-6));
+  CHECK(r.demands[0].tier == 1);
+  CHECK(r.demands[1].tier == 2);
+  REQUIRE(r.demands[0].paths.size() == 1);
+  CHECK(r.demands[0].paths[0].arcs == std::vector<int>{0, 1});
+
+  SECTION("the checker measures an excess against the arc's own capacity") {
+    // 0.3 too much on the 0.001 arc is 3e-10 of the largest capacity, but 300 times the arc.
+    MultiflowResult bad = r;
+    bad.demands[0].paths[0].amount += 0.3;
+    bad.demands[0].share += 0.3;
+    bad.arcs[0].load += 0.3;
+    bad.arcs[1].load += 0.3;
+    const MultiflowCheck c = check_multiflow(b.net, bad);
+    CHECK_FALSE(c.ok);
+    CHECK(c.max_capacity_violation > 100);
+    CHECK(c.worst.find("'a0'") != std::string::npos);
+  }
+}
+
 TEST_CASE("routing options: hop limits and k shortest paths restrict the paths", "[fair][routing]") {
   // 0 -> 3 directly (cap 1), and 0 -> 1 -> 2 -> 3 (cap 5 each): all paths give 6; at most
   // one arc gives 1; the single shortest path gives 1; the two shortest give 6.

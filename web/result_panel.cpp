@@ -38,7 +38,7 @@ void draw_result_panel() {
   if (r.lambda >= 0) ImGui::Text("Max concurrent flow lambda %.6g", r.lambda);
   if (r.price_of_fairness >= 0)
     ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g", 100 * r.price_of_fairness, r.max_throughput);
-  ImGui::Text("Independent check: %s (largest capacity excess %.2g)", r.check.ok ? "passed" : "FAILED",
+  ImGui::Text("Independent check: %s (largest capacity excess %.2g of the arc's capacity)", r.check.ok ? "passed" : "FAILED",
               r.check.max_capacity_violation);
 
   // Filter: everything, one demand, or one tier.

@@ -7,6 +7,7 @@
 #include <queue>
 
 #include "apportion/flow_graph.h"
+#include "apportion/number_text.h"
 #include "apportion/path_master.h"
 #include "apportion/tolerance.h"
 
@@ -43,7 +44,7 @@ class Engine {
         g_(FlowGraph::from_network(net)),
         specs_(make_specs(net)),
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
-        tol_(Tolerance::for_scale(std::max(net.magnitude(), 1.0), 1e-9)) {
+        demand_tol_(demand_tolerances()) {
     master_.lp().set_hot_start(opt.hot_start);
   }
 
@@ -55,6 +56,7 @@ class Engine {
     for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(kInf), d.weight});
     return s;
   }
+  std::vector<Tolerance> demand_tolerances() const;
   int K() const { return static_cast<int>(specs_.size()); }
   LpSolver& lp() { return master_.lp(); }
   bool solve(MultiflowResult& r) {
@@ -99,10 +101,50 @@ class Engine {
   FlowGraph g_;
   std::vector<DemandSpec> specs_;
   PathMaster master_;
-  Tolerance tol_;
+  std::vector<Tolerance> demand_tol_;  // per demand: 1e-9 of its own scale (demand_tolerances)
   std::vector<double> concurrent_lengths_;
   SolveProgress progress_;
 };
+
+// Whether a demand's share is zero, reached its amount or grew is judged at the demand's own
+// scale: the bottleneck of its widest path, or its amount if smaller. A global scale (the
+// largest capacity) would call a 0.001 share "zero" in a network with 1e9 arcs and freeze it
+// there. Demands that cannot be served use the smallest positive capacity.
+std::vector<Tolerance> Engine::demand_tolerances() const {
+  double smallest = kInf;
+  for (int a = 0; a < g_.arc_count(); ++a)
+    if (g_.capacity(a) > 0) smallest = std::min(smallest, g_.capacity(a));
+  if (!std::isfinite(smallest)) smallest = 1.0;
+  const std::vector<Lane>& lanes = master_.lanes();
+  std::vector<std::vector<int>> out(g_.node_count());
+  for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
+  std::vector<std::vector<int>> by_origin(g_.node_count());
+  for (int k = 0; k < K(); ++k) by_origin[specs_[k].origin].push_back(k);
+  std::vector<Tolerance> tols(K(), Tolerance(1e-9 * smallest));
+  std::vector<double> width(g_.node_count());
+  for (int o = 0; o < g_.node_count(); ++o) {
+    if (by_origin[o].empty()) continue;
+    // Widest paths from o: Dijkstra with min() for the path and max() for the choice.
+    std::fill(width.begin(), width.end(), 0.0);
+    width[o] = kInf;
+    std::priority_queue<std::pair<double, int>> heap;
+    heap.push({kInf, o});
+    while (!heap.empty()) {
+      const auto [w, u] = heap.top();
+      heap.pop();
+      if (w < width[u]) continue;
+      for (int i : out[u]) {
+        const double through = std::min(w, g_.capacity(lanes[i].arc));
+        if (through > width[lanes[i].head]) width[lanes[i].head] = through, heap.push({through, lanes[i].head});
+      }
+    }
+    for (int k : by_origin[o]) {
+      const double scale = std::min(width[specs_[k].destination], specs_[k].amount);
+      if (scale > 0) tols[k] = Tolerance(1e-9 * scale);
+    }
+  }
+  return tols;
+}
 
 // Progressive filling with exact freezing; fills r.tiers and r.demands[k].tier and
 // limited_by_amount, and `fair` with the shares.
@@ -146,7 +188,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     }
     std::vector<int> freeze, undecided;
     for (int k : open) {
-      const bool at_amount = std::isfinite(specs_[k].amount) && !tol_.less(t * specs_[k].weight, specs_[k].amount);
+      const bool at_amount = std::isfinite(specs_[k].amount) && !demand_tol_[k].less(t * specs_[k].weight, specs_[k].amount);
       if (at_amount) {
         r.demands[k].limited_by_amount = true;
         freeze.push_back(k);
@@ -167,7 +209,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
         std::vector<int> still;
         bool any_grew = false;
         for (int k : undecided) {
-          if (tol_.greater(lp().value(master_.share_column(k)), specs_[k].weight * t)) {
+          if (demand_tol_[k].greater(lp().value(master_.share_column(k)), specs_[k].weight * t)) {
             any_grew = true;
             lp().set_cost(master_.share_column(k), 0.0);
           } else {
@@ -199,7 +241,9 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     // Demands no path can serve freeze at 0 with the first round that reaches level 0, or
     // form the first tier of their own.
     if (!unreachable.empty()) {
-      if (tol_.zero(t)) {
+      bool level_zero = true;  // zero for every demand of this round, at its own scale
+      for (int k : freeze) level_zero = level_zero && demand_tol_[k].zero(t * specs_[k].weight);
+      if (level_zero) {
         freeze.insert(freeze.end(), unreachable.begin(), unreachable.end());
       } else {
         Tier zero;
@@ -260,7 +304,7 @@ bool Engine::max_concurrent(MultiflowResult& r, double& lambda) {
       lp().set_coefficient(master_.level_row(k), master_.level_column(), -specs_[k].amount);
     }
   }
-  if (!tol_.positive(total)) {
+  if (!(total > 0)) {  // amounts are >= 0 (validated): any positive one will do
     r.status = SolveStatus::kBadInput;
     r.message = "max concurrent flow needs at least one demand with a positive amount";
     return false;
@@ -292,7 +336,7 @@ void Engine::collect(MultiflowResult& r, const std::vector<double>* fixed_shares
   std::vector<std::vector<double>> per(g_.arc_count());
   for (const MasterPath& p : master_.paths()) {
     const double x = lp().value(p.column);
-    if (!tol_.positive(x)) continue;
+    if (!demand_tol_[p.demand].positive(x)) continue;
     PathShare ps;
     ps.amount = x;
     ps.nodes.push_back(lanes[p.lanes.front()].tail);
@@ -318,9 +362,12 @@ void Engine::collect(MultiflowResult& r, const std::vector<double>* fixed_shares
   }
   for (int k = 0; k < K(); ++k) {
     DemandShare& d = r.demands[k];
-    std::sort(d.paths.begin(), d.paths.end(), [](const PathShare& a, const PathShare& b) { return a.amount > b.amount; });
+    // Ties broken by route, so that the order is the same with every standard library.
+    std::sort(d.paths.begin(), d.paths.end(), [](const PathShare& a, const PathShare& b) {
+      return a.amount != b.amount ? a.amount > b.amount : a.arcs < b.arcs;
+    });
     d.share = fixed_shares ? (*fixed_shares)[k] : lp().value(master_.share_column(k));
-    if (tol_.zero(d.share)) d.share = 0.0;
+    if (demand_tol_[k].zero(d.share)) d.share = 0.0;
     d.normalised = d.share / specs_[k].weight;
     d.percent_of_amount = std::isfinite(specs_[k].amount)
                               ? (specs_[k].amount > 0 ? 100.0 * d.share / specs_[k].amount : 100.0)
@@ -391,7 +438,9 @@ void Engine::feasibility_certificate(MultiflowResult& r) {
   // An overloaded cut, if the arcs with positive length form one around some origin.
   std::vector<std::vector<int>> out(g_.node_count());
   for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
-  double best_ratio = 1.0;
+  double best_ratio = 1.0, longest = 0.0;
+  for (double l : r.dual_lengths) longest = std::max(longest, l);
+  const Tolerance length_tol(1e-9 * longest);  // lengths scale as 1 / capacity: judge them among themselves
   for (int o = 0; o < g_.node_count(); ++o) {
     bool is_origin = false;
     for (const DemandSpec& s : specs_) is_origin |= s.origin == o && std::isfinite(s.amount);
@@ -403,7 +452,7 @@ void Engine::feasibility_certificate(MultiflowResult& r) {
       const int u = stack.back();
       stack.pop_back();
       for (int i : out[u])
-        if (!tol_.positive(r.dual_lengths[lanes[i].arc]) && !seen[lanes[i].head])
+        if (!length_tol.positive(r.dual_lengths[lanes[i].arc]) && !seen[lanes[i].head])
           seen[lanes[i].head] = 1, stack.push_back(lanes[i].head);
     }
     double demand = 0.0, capacity = 0.0;
@@ -412,7 +461,8 @@ void Engine::feasibility_certificate(MultiflowResult& r) {
     for (int a = 0; a < g_.arc_count(); ++a)
       if ((seen[g_.tail(a)] && !seen[g_.head(a)]) || (g_.two_way(a) && seen[g_.head(a)] && !seen[g_.tail(a)]))
         capacity += g_.capacity(a);
-    if (tol_.greater(demand, capacity) && (capacity == 0 || demand / capacity > best_ratio)) {
+    if (Tolerance::for_scale(std::max(demand, capacity), 1e-9).greater(demand, capacity) &&
+        (capacity == 0 || demand / capacity > best_ratio)) {
       best_ratio = capacity == 0 ? kInf : demand / capacity;
       r.overloaded_cut_source_side.clear();
       for (int v = 0; v < g_.node_count(); ++v)
@@ -499,7 +549,7 @@ MultiflowResult Engine::run() {
           shares[k] = std::min(lambda, 1.0) * specs_[k].amount;
       }
       if (opt_.objective == FairObjective::kFeasibility) {
-        r.all_demands_met = !tol_.less(lambda, 1.0);
+        r.all_demands_met = !Tolerance(1e-9).less(lambda, 1.0);  // lambda is a ratio
         feasibility_certificate(r);
         double delivered = 0.0, asked = 0.0;
         for (const DemandSpec& s : specs_)
@@ -547,7 +597,21 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     }
   }
   Engine engine(net, options);
-  return engine.run();
+  MultiflowResult r = engine.run();
+  if (r.status == SolveStatus::kNumericalDifficulty) {
+    // Say what makes this network hard, and what to do about it: the LP solver's tolerances
+    // are absolute (1e-7), so a network whose capacities span many orders of magnitude can
+    // be out of its reach where each part alone is not.
+    double smallest = kInf, largest = 0.0;
+    for (const Arc& a : net.arcs)
+      if (a.enabled && a.capacity > 0) smallest = std::min(smallest, a.capacity), largest = std::max(largest, a.capacity);
+    if (largest > 0 && largest / smallest > 1e7)
+      r.message += "; the capacities span " + std::to_string(static_cast<int>(std::floor(std::log10(largest / smallest)))) +
+                   " orders of magnitude (" + format_number(smallest) + " to " + format_number(largest) +
+                   "), more than the LP solver's tolerances resolve in one network: arcs far below the "
+                   "others can be left out, or the parts solved as separate networks";
+  }
+  return r;
 }
 
 }  // namespace apportion

@@ -198,7 +198,7 @@ int run_fair(int argc, char** argv) {
               << percent(100 * r.price_of_fairness);
   std::cout << "\nchecked: " << (r.check.ok ? "ok" : "FAILED") << " (largest capacity violation "
             << num(r.check.max_capacity_violation) << ", conservation " << num(r.check.max_conservation_violation)
-            << ", relative to the largest capacity)\n";
+            << ", each relative to its own arc or demand)\n";
   std::cout << r.stats.lp_solves << " LP solves, " << r.stats.simplex_iterations << " simplex iterations, "
             << r.stats.path_columns << " paths generated, " << r.stats.saturation_tests << " saturation tests\n";
   std::cout << '\n' << kPlanningCaution << '\n';

@@ -95,11 +95,13 @@ struct Tier {
   std::vector<double> binding_prices;  // their duals: gain in the round's objective per unit of capacity
 };
 
+// Violations are relative to what they concern: an arc's excess to its capacity, a demand's
+// errors to its share, each at least the network's smallest positive capacity.
 struct MultiflowCheck {
   bool ok = false;
-  double max_capacity_violation = 0.0;
-  double max_conservation_violation = 0.0;  // per demand, at every node
-  double max_share_error = 0.0;             // |reported share - flow leaving its origin|
+  double max_capacity_violation = 0.0;      // (load - capacity) / capacity
+  double max_conservation_violation = 0.0;  // per demand, at every node, / share
+  double max_share_error = 0.0;             // |reported share - flow leaving its origin| / share
   std::string worst;
 };
 
