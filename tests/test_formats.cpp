@@ -107,6 +107,17 @@ TEST_CASE("DIMACS: malformed files are refused with the line", "[dimacs]") {
   CHECK(r.diagnostics.items[0].item_id == "4");  // the line number
 }
 
+TEST_CASE("DIMACS: a declared arc count is not trusted for memory", "[dimacs][limits]") {
+  // 10 million arcs declared in a 33-byte file: read as the one arc it has (with a warning),
+  // without reserving room for the ten million (about 800 MB).
+  const LoadResult r = read_dimacs("p max 2 10000000\nn 1 s\nn 2 t\na 1 2 5\n");
+  REQUIRE(r.ok());
+  CHECK(r.network->arc_count() == 1);
+  CHECK(r.network->arcs.capacity() < 100);
+  REQUIRE(r.diagnostics.items.size() == 1);
+  CHECK(r.diagnostics.items[0].severity == Severity::kWarning);
+}
+
 TEST_CASE("GraphML: keys map to capacity, labels and positions", "[graphml]") {
   // Structure per the GraphML Primer (graphdrawing.org, 2002): <key> declarations, then
   // <graph> with <node> and <edge> holding <data key=...>.

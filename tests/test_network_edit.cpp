@@ -108,6 +108,17 @@ TEST_CASE("automatic layout places every node, apart, deterministically", "[layo
   CHECK(arc_mean < 0.4 * all_mean);  // neighbours are drawn near each other
 }
 
+TEST_CASE("automatic layout bounds its work on huge networks", "[layout][limits]") {
+  const LayoutOptions o;
+  CHECK(layout_iterations(1000, 3000, o) == 200);
+  CHECK(layout_iterations(150000, 50000, o) == 200);
+  CHECK(layout_iterations(2000000, 0, o) == 20);        // 200 x 200,000 / 2,000,000
+  CHECK(layout_iterations(2000000, 10000000, o) == 5);  // never fewer than 5
+  // iterations x (nodes + arcs) stays within 200 x 200,000 above the threshold
+  for (int n : {300000, 700000, 1500000})
+    CHECK(static_cast<double>(layout_iterations(n, n, o)) * (2.0 * n) <= 200.0 * 200000);
+}
+
 TEST_CASE("automatic layout keeps the nodes that already have a position", "[layout]") {
   Network net = sample();
   net.nodes.push_back({"loose", "", std::nullopt, std::nullopt, 0});

@@ -1,6 +1,7 @@
 // DIMACS max-flow and min-cost-flow files; see network_dimacs.h.
 #include "apportion/network_dimacs.h"
 
+#include <algorithm>
 #include <cmath>
 #include <sstream>
 #include <unordered_map>
@@ -134,7 +135,9 @@ LoadResult read_dimacs(const std::string& text) {
       }
       net.nodes.resize(n);
       for (long long v = 0; v < n; ++v) net.nodes[v].id = std::to_string(v + 1);
-      net.arcs.reserve(declared_arcs);
+      // The declared count is the file's word, not its size: a 20-byte file may declare 10
+      // million arcs. Reserve no more than the text can hold (an arc line takes >= 6 bytes).
+      net.arcs.reserve(static_cast<std::size_t>(std::min<long long>(declared_arcs, static_cast<long long>(text.size() / 6))));
       continue;
     }
     if (kind.empty()) {

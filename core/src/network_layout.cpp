@@ -41,7 +41,8 @@ void auto_layout(Network& net, const LayoutOptions& options) {
   std::unordered_map<long long, std::vector<int>> grid;
   auto key = [](long long gx, long long gy) { return gx * 1000003LL + gy; };
   double temperature = side / 10;
-  for (int it = 0; it < options.iterations; ++it) {
+  const int iterations = layout_iterations(n, net.arc_count(), options);
+  for (int it = 0; it < iterations; ++it) {
     std::fill(dx.begin(), dx.end(), 0.0);
     std::fill(dy.begin(), dy.end(), 0.0);
     grid.clear();
@@ -85,6 +86,12 @@ void auto_layout(Network& net, const LayoutOptions& options) {
   }
   for (int v = 0; v < n; ++v)
     if (movable[v]) net.nodes[v].x = std::round(x[v] * 100) / 100, net.nodes[v].y = std::round(y[v] * 100) / 100;
+}
+
+int layout_iterations(int nodes, int arcs, const LayoutOptions& options) {
+  constexpr double kWork = 200.0 * 200000;  // iterations times (nodes + arcs)
+  const double size = std::max(1.0, static_cast<double>(nodes) + arcs);
+  return std::min(options.iterations, std::max(5, static_cast<int>(kWork / size)));
 }
 
 }  // namespace apportion

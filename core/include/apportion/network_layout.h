@@ -12,12 +12,17 @@
 namespace apportion {
 
 struct LayoutOptions {
-  int iterations = 200;
+  int iterations = 200;  // at most; see layout_iterations()
   bool keep_placed = true;  // nodes that have a position keep it and only push and pull the others
 };
 
 // Writes x and y of the nodes it places (all nodes, or those without a position). Positions
 // are in a square of side about 100 * sqrt(n).
 void auto_layout(Network& net, const LayoutOptions& options = {});
+
+// The iterations auto_layout runs: options.iterations, fewer (at least 5) past 200,000 nodes
+// and arcs together, so that the work stays bounded and opening a huge file does not freeze
+// the page.
+int layout_iterations(int nodes, int arcs, const LayoutOptions& options);
 
 }  // namespace apportion
