@@ -1,16 +1,21 @@
 #!/usr/bin/env bash
-# fuzz.sh [--smoke | --seconds N]: builds the libFuzzer targets (preset `fuzz`: clang with
-# AddressSanitizer and UBSan), makes seed corpora from the demo networks (converted to every
-# format by the command line), and runs each target.
+# fuzz.sh [--smoke | --seconds N | --runs N] [TARGET...]: builds the libFuzzer targets
+# (preset `fuzz`: clang with AddressSanitizer and UBSan), makes seed corpora from the demo
+# networks and from a small network (converted to every format by the command line), and
+# runs each target (all, or the ones named: json csv dimacs graphml payload solve result).
 #   --smoke      deterministic short run (seed 1, 2,000 inputs per target); part of test.sh
 #   --seconds N  each target for N seconds (default 60), corpora kept in build/fuzz/corpus
+#   --runs N     each target for N inputs (the long runs of the README: --runs 10000000)
 # A finding stops the run with the target's report and leaves the input as crash-* / leak-*
 # / timeout-* in build/fuzz/findings; add it as a regression test.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 mode=${1:---seconds}
-seconds=${2:-60}
+amount=${2:-60}
+shift $(( $# >= 2 ? 2 : $# ))
+targets=("$@")
+[ ${#targets[@]} = 0 ] && targets=(json csv dimacs graphml payload solve result)
 "$root/shell/build.sh" native fuzz >/dev/null
 
 cli=build/native/shell/apportion
@@ -20,7 +25,13 @@ findings=build/fuzz/findings
 mkdir -p "$findings"
 for t in json csv dimacs graphml payload solve result; do mkdir -p "$corpus/$t"; done
 work=$(mktemp -d); trap 'rm -rf "$work"' EXIT
-for demo in demo-networks/*.json; do
+# The demos, and a three-node network (invented): small seeds keep each input cheap.
+cat > "$work/abc.json" <<'JSON'
+{"format": "apportion-network", "version": 1, "nodes": [{"id": "a", "x": 0, "y": 0}, {"id": "b", "x": 0, "y": 0},
+ {"id": "c", "x": 0, "y": 0}], "arcs": [{"id": "ab", "from": "a", "to": "b", "capacity": 5},
+ {"id": "bc", "from": "b", "to": "c", "capacity": 5}], "demands": [{"id": "d", "origin": "a", "destination": "c", "amount": "max"}]}
+JSON
+for demo in demo-networks/*.json "$work/abc.json"; do
   name=$(basename "$demo" .json)
   cp "$demo" "$corpus/json/$name.json"
   cp "$demo" "$corpus/solve/$name.json"
@@ -47,25 +58,21 @@ cat > "$corpus/graphml/small.graphml" <<'XML'
   </graph>
 </graphml>
 XML
-cat > "$work/abc.json" <<'JSON'
-{"format": "apportion-network", "version": 1, "nodes": [{"id": "a", "x": 0, "y": 0}, {"id": "b", "x": 0, "y": 0},
- {"id": "c", "x": 0, "y": 0}], "arcs": [{"id": "ab", "from": "a", "to": "b", "capacity": 5},
- {"id": "bc", "from": "b", "to": "c", "capacity": 5}], "demands": [{"id": "d", "origin": "a", "destination": "c", "amount": "max"}]}
-JSON
 for rule in fair concurrent throughput feasible; do $cli $rule "$work/abc.json" --json "$corpus/result/$rule.json" >/dev/null 2>&1 || true; done
 
 status=0
-for t in json csv dimacs graphml payload solve result; do
-  if [ "$mode" = --smoke ]; then
-    args=(-seed=1 -runs=2000)
-  else
-    args=(-max_total_time="$seconds")
-  fi
+for t in "${targets[@]}"; do
+  case "$mode" in
+    --smoke) args=(-seed=1 -runs=2000) ;;
+    --runs) args=(-runs="$amount") ;;
+    *) args=(-max_total_time="$amount") ;;
+  esac
+  start=$(date +%s)
   log="$work/$t.log"
   if build/fuzz/tests/fuzz/fuzz_$t "${args[@]}" -max_len=65536 -timeout=20 -rss_limit_mb=2048 -print_final_stats=1 \
        -artifact_prefix="$findings/$t-" "$corpus/$t" >"$log" 2>&1; then
     runs=$(grep -o 'stat::number_of_executed_units: [0-9]*' "$log" | awk '{print $2}' || true)
-    echo "apportion: fuzz $t: ${runs:-?} inputs, no findings"
+    echo "apportion: fuzz $t: ${runs:-?} inputs in $(( $(date +%s) - start )) s, no findings"
   else
     echo "apportion: fuzz $t FOUND A PROBLEM:" >&2
     tail -40 "$log" >&2
