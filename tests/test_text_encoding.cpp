@@ -77,3 +77,25 @@ TEST_CASE("a DIMACS node number too large for any integer is refused, not conver
   CHECK_FALSE(r.ok());
   CHECK(r.diagnostics.has_errors());
 }
+
+TEST_CASE("a GraphML graph id longer than the string limit is refused, as in JSON", "[encoding][limits]") {
+  // Fuzzing finding: a 1,124-character graph id became the network's name; the JSON reader
+  // refuses names over 1,024 characters, so the JSON written from it (the app's autosave)
+  // could not be read back.
+  const std::string text = "<?xml version=\"1.0\"?><graphml><graph id=\"" + std::string(1100, 'g') +
+                           "\" edgedefault=\"directed\"><node id=\"a\"/><node id=\"b\"/>"
+                           "<edge source=\"a\" target=\"b\"/></graph></graphml>";
+  const LoadResult r = read_graphml(text);
+  CHECK_FALSE(r.ok());
+  bool named = false;
+  for (const auto& item : r.diagnostics.items)
+    named = named || (item.field == "name" && item.message.find("longer than 1024") != std::string::npos);
+  CHECK(named);
+  // A name of exactly the limit is kept, and survives the round trip.
+  const std::string fits = "<?xml version=\"1.0\"?><graphml><graph id=\"" + std::string(1024, 'g') +
+                           "\" edgedefault=\"directed\"><node id=\"a\"/><node id=\"b\"/>"
+                           "<edge source=\"a\" target=\"b\"/></graph></graphml>";
+  const LoadResult ok = read_graphml(fits);
+  REQUIRE(ok.ok());
+  CHECK(read_network_json(write_network_json(*ok.network)).ok());
+}

@@ -103,8 +103,15 @@ Diagnostics validate(const Network& net) {
   for (std::size_t i = 0; i < net.arcs.size(); ++i)
     if (!valid_utf8(net.arcs[i].id))
       out.error("arc", item_name(net.arcs[i].id, i), "id", "is not UTF-8 text (save the file as UTF-8)");
-  for (const std::string* text : {&net.name, &net.units.capacity, &net.units.cost, &net.units.time})
-    if (!valid_utf8(*text)) out.error("file", "", "name or units", "is not UTF-8 text (save the file as UTF-8)");
+  const std::pair<const char*, const std::string*> texts[] = {
+      {"name", &net.name}, {"units", &net.units.capacity}, {"units", &net.units.cost}, {"units", &net.units.time}};
+  for (const auto& [field, text] : texts) {
+    if (!valid_utf8(*text)) out.error("file", "", field, "is not UTF-8 text (save the file as UTF-8)");
+    // Every importer, not only JSON's: a GraphML graph id of 1,100 characters became a
+    // name that the JSON reader refused, so the network's own autosave could not be opened.
+    if (text->size() > SizeLimits::kMaxStringLength)
+      out.error("file", "", field, "longer than " + std::to_string(SizeLimits::kMaxStringLength) + " characters");
+  }
 
   std::vector<int> degree(n, 0);
   for (std::size_t i = 0; i < net.nodes.size(); ++i) {
