@@ -23,7 +23,10 @@ Payload read_payload(const std::string& payload_json) {
     p.loaded.diagnostics.error("file", "", "", "the browser handed over no readable file");
     return p;
   }
-  p.source = root.value("source", "file");
+  // Typed look-up: value() on a key of another type would abort the page (no exceptions).
+  // Fuzzing finding: {"source": 2.06666, ...}.
+  const auto source = root.find("source");
+  p.source = source != root.end() && source->is_string() ? source->get<std::string>() : "file";
   if (root.contains("error") && root["error"].is_string()) {
     p.loaded.diagnostics.error("file", "", "", root["error"].get<std::string>());
     return p;

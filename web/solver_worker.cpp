@@ -6,6 +6,7 @@
 // reads with read_multiflow_json and checks again with the independent checker. Progress is
 // posted at most every 100 ms. Cancel is the page terminating this worker: it stops a solve
 // even in the middle of an LP, and the page starts a fresh worker for the next one.
+#include <algorithm>
 #include <emscripten.h>
 
 #include <nlohmann/json.hpp>
@@ -41,11 +42,17 @@ std::string solve(int id, const char* request_text) {
   Diagnostics d = validate(net);
   if (d.has_errors()) return failure("the network has errors; validate it first");
   FairOptions options;
-  const std::string objective = request.value("objective", std::string("max-min-fair"));
-  objective_from_name(objective, options.objective);
-  options.epsilon = request.value("epsilon", 0.1);
-  options.routing.hop_limit = request.value("hop_limit", 0);
-  options.routing.k_paths = request.value("k_paths", 0);
+  // Typed look-ups: value() on a key of another type would abort the worker (no exceptions).
+  auto number = [&request](const char* key, double fallback) {
+    const auto it = request.find(key);
+    return it != request.end() && it->is_number() ? it->get<double>() : fallback;
+  };
+  const auto objective = request.find("objective");
+  if (objective != request.end() && objective->is_string())
+    objective_from_name(objective->get<std::string>(), options.objective);
+  options.epsilon = number("epsilon", 0.1);
+  options.routing.hop_limit = static_cast<int>(std::clamp(number("hop_limit", 0), 0.0, 1e6));
+  options.routing.k_paths = static_cast<int>(std::clamp(number("k_paths", 0), 0.0, 1e6));
   double last = 0;
   options.on_progress = [&](const SolveProgress& p) {
     const double now = emscripten_get_now();
