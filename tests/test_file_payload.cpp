@@ -12,6 +12,10 @@ namespace {
 const std::string kNetwork =
     R"({\"format\": \"apportion-network\", \"version\": 1, \"nodes\": [{\"id\": \"a\"}, {\"id\": \"b\"}],)"
     R"( \"arcs\": [{\"id\": \"ab\", \"from\": \"a\", \"to\": \"b\", \"capacity\": 5}], \"demands\": []})";
+// A payload as the page sends it: one file with this source, name and text.
+std::string payload(const std::string& source_json, const std::string& name, const std::string& text) {
+  return "{\"source\": " + source_json + ", \"files\": [{\"name\": \"" + name + "\", \"text\": \"" + text + "\"}]}";
+}
 }  // namespace
 
 TEST_CASE("a payload's source of the wrong type is read as a picked file", "[payload]") {
@@ -23,16 +27,14 @@ TEST_CASE("a payload's source of the wrong type is read as a picked file", "[pay
   CHECK_FALSE(bad.loaded.ok());
   CHECK(bad.loaded.diagnostics.has_errors());
 
-  const web::Payload good =
-      web::read_payload("{\"source\": 7, \"files\": [{\"name\": \"n.json\", \"text\": \"" + kNetwork + "\"}]}");
+  const web::Payload good = web::read_payload(payload("7", "n.json", kNetwork));
   CHECK(good.source == "file");
   REQUIRE(good.loaded.ok());
   CHECK(good.loaded.network->arc_count() == 1);
 }
 
 TEST_CASE("a share link payload keeps its source", "[payload]") {
-  const web::Payload p =
-      web::read_payload("{\"source\": \"link\", \"files\": [{\"name\": \"shared.json\", \"text\": \"" + kNetwork + "\"}]}");
+  const web::Payload p = web::read_payload(payload("\"link\"", "shared.json", kNetwork));
   CHECK(p.source == "link");
   REQUIRE(p.loaded.ok());
   CHECK(p.loaded.network->node_count() == 2);

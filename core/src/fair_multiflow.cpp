@@ -111,10 +111,8 @@ class Engine {
 // largest capacity) would call a 0.001 share "zero" in a network with 1e9 arcs and freeze it
 // there. Demands that cannot be served use the smallest positive capacity.
 std::vector<Tolerance> Engine::demand_tolerances() const {
-  double smallest = kInf;
-  for (int a = 0; a < g_.arc_count(); ++a)
-    if (g_.capacity(a) > 0) smallest = std::min(smallest, g_.capacity(a));
-  if (!std::isfinite(smallest)) smallest = 1.0;
+  const double found = net_.positive_capacities().smallest;
+  const double smallest = found > 0 ? found : 1.0;
   const std::vector<Lane>& lanes = master_.lanes();
   std::vector<std::vector<int>> out(g_.node_count());
   for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
@@ -602,9 +600,7 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     // Say what makes this network hard, and what to do about it: the LP solver's tolerances
     // are absolute (1e-7), so a network whose capacities span many orders of magnitude can
     // be out of its reach where each part alone is not.
-    double smallest = kInf, largest = 0.0;
-    for (const Arc& a : net.arcs)
-      if (a.enabled && a.capacity > 0) smallest = std::min(smallest, a.capacity), largest = std::max(largest, a.capacity);
+    const auto [smallest, largest] = net.positive_capacities();
     if (largest > 0 && largest / smallest > 1e7)
       r.message += "; the capacities span " + std::to_string(static_cast<int>(std::floor(std::log10(largest / smallest)))) +
                    " orders of magnitude (" + format_number(smallest) + " to " + format_number(largest) +

@@ -18,10 +18,8 @@ namespace apportion {
 MultiflowCheck check_multiflow(const Network& net, const MultiflowResult& r) {
   MultiflowCheck c;
   const int n = net.node_count(), m = net.arc_count();
-  double smallest = INFINITY;
-  for (const Arc& a : net.arcs)
-    if (a.enabled && a.capacity > 0) smallest = std::min(smallest, a.capacity);
-  if (!std::isfinite(smallest)) smallest = 1.0;
+  const double found = net.positive_capacities().smallest;
+  const double smallest = found > 0 ? found : 1.0;
   auto scale_of = [smallest](double v) { return std::max(std::abs(v), smallest); };
   auto note = [&c](double& slot, double v, const std::string& what) {
     if (v > slot) {

@@ -1,6 +1,7 @@
 // Network document look-ups.
 #include "apportion/network.h"
 
+#include <algorithm>
 #include <cmath>
 
 namespace apportion {
@@ -28,6 +29,16 @@ double Network::magnitude() const {
   for (const Demand& d : demands)
     if (d.amount) take(*d.amount);
   return m;
+}
+
+Network::CapacityRange Network::positive_capacities() const {
+  CapacityRange r;
+  for (const Arc& a : arcs) {
+    if (!a.enabled || !(a.capacity > 0)) continue;
+    r.smallest = r.largest > 0 ? std::min(r.smallest, a.capacity) : a.capacity;
+    r.largest = std::max(r.largest, a.capacity);
+  }
+  return r;
 }
 
 }  // namespace apportion

@@ -70,6 +70,12 @@ struct Network {
   int find_demand(const std::string& id) const;
   // The largest arc capacity or |supply| or finite demand amount; scales the tolerance.
   double magnitude() const;
+  // The smallest and largest capacity of the arcs in service with a positive capacity; both
+  // 0 when there is none. The fair engine and its checker judge small numbers against these.
+  struct CapacityRange {
+    double smallest = 0.0, largest = 0.0;
+  };
+  CapacityRange positive_capacities() const;
 };
 
 }  // namespace apportion
