@@ -118,6 +118,21 @@ TEST_CASE("DIMACS: a declared arc count is not trusted for memory", "[dimacs][li
   CHECK(r.diagnostics.items[0].severity == Severity::kWarning);
 }
 
+TEST_CASE("DIMACS: millions of declared isolated nodes give a readable list of warnings", "[dimacs][limits]") {
+  // 2 million nodes (the limit) declared in a few bytes, all but two touched by nothing.
+  // One warning per node made 2 million diagnostics for the app to list; the first 100 are
+  // named and the rest counted in one line.
+  const LoadResult r = read_dimacs("p max 2000000 1\nn 1 s\nn 2 t\na 1 2 5\n");
+  REQUIRE(r.ok());
+  CHECK(r.network->node_count() == 2'000'000);
+  REQUIRE(r.diagnostics.warning_count() == 101);
+  CHECK(r.diagnostics.items[0].item_kind == "node");
+  CHECK(r.diagnostics.items[0].item_id == "3");
+  CHECK(r.diagnostics.items[99].item_id == "102");
+  CHECK(r.diagnostics.items[100].item_kind == "file");
+  CHECK(r.diagnostics.items[100].message == "and 1999898 more isolated nodes");
+}
+
 TEST_CASE("GraphML: keys map to capacity, labels and positions", "[graphml]") {
   // Structure per the GraphML Primer (graphdrawing.org, 2002): <key> declarations, then
   // <graph> with <node> and <edge> holding <data key=...>.

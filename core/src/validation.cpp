@@ -4,6 +4,7 @@
 #include <cmath>
 #include <queue>
 #include <string>
+#include <string_view>
 #include <unordered_set>
 
 #include "apportion/size_limits.h"
@@ -15,7 +16,10 @@ namespace {
 // Items whose id is empty or not text are named by their position, so that messages stay
 // printable and can be written into JSON.
 std::string item_name(const std::string& id, std::size_t index) {
-  return id.empty() || !valid_utf8(id) ? "#" + std::to_string(index + 1) : id;
+  if (!id.empty() && valid_utf8(id)) return id;
+  std::string position = "#";  // appended, not "#" + ...: g++ 12 warns falsely (-Wrestrict) on that
+  position += std::to_string(index + 1);
+  return position;
 }
 
 // Every text field must be UTF-8 (RFC 3629): files from elsewhere in another encoding are
@@ -32,7 +36,9 @@ void check_text(const Items& items, const char* kind, Diagnostics& out) {
 
 template <class Items>
 void check_ids(const Items& items, const char* kind, Diagnostics& out) {
-  std::unordered_set<std::string> seen;
+  // Views into the items: a copy of every id made opening a 2-million-node file slow.
+  std::unordered_set<std::string_view> seen;
+  seen.reserve(items.size());
   for (std::size_t i = 0; i < items.size(); ++i) {
     const std::string& id = items[i].id;
     if (id.empty()) {
@@ -45,19 +51,44 @@ void check_ids(const Items& items, const char* kind, Diagnostics& out) {
   }
 }
 
-// A finite number within the magnitude limit; `nonnegative` also rejects values below 0.
-void check_number(double v, bool nonnegative, const char* kind, const std::string& id, const char* field,
-                  Diagnostics& out) {
-  if (std::isnan(v)) {
-    out.error(kind, id, field, "is not a number (NaN)");
-  } else if (std::isinf(v)) {
-    out.error(kind, id, field, "is infinite");
-  } else if (nonnegative && v < 0) {
-    out.error(kind, id, field, "is negative (" + std::to_string(v) + ")");
-  } else if (std::abs(v) > SizeLimits::kMaxMagnitude) {
-    out.error(kind, id, field, "exceeds the limit of 1e15 in magnitude");
-  }
+// What is wrong with a number that must be finite and within the magnitude limit
+// (`nonnegative` also rejects values below 0); empty when nothing is.
+std::string number_problem(double v, bool nonnegative) {
+  if (std::isnan(v)) return "is not a number (NaN)";
+  if (std::isinf(v)) return "is infinite";
+  if (nonnegative && v < 0) return "is negative (" + std::to_string(v) + ")";
+  if (std::abs(v) > SizeLimits::kMaxMagnitude) return "exceeds the limit of 1e15 in magnitude";
+  return {};
 }
+
+// One warning that may concern millions of items (a few bytes of DIMACS declare 2 million
+// isolated nodes): the first kListed are named one by one, the rest counted in one line, so
+// that the list stays readable and a large file opens quickly.
+class RepeatedWarning {
+ public:
+  static constexpr int kListed = 100;
+  RepeatedWarning(const char* kind, const char* field, const char* message, const char* plural)
+      : kind_(kind), field_(field), message_(message), plural_(plural) {}
+  void add(Diagnostics& out, const std::string& id, std::size_t index) {
+    if (listed_ < kListed) {
+      out.warning(kind_, item_name(id, index), field_, message_);
+      ++listed_;
+    } else {
+      ++more_;
+    }
+  }
+  void finish(Diagnostics& out) const {
+    if (more_ > 0) out.warning("file", "", "", "and " + std::to_string(more_) + " more " + plural_);
+  }
+
+ private:
+  const char* kind_;
+  const char* field_;
+  const char* message_;
+  const char* plural_;
+  int listed_ = 0;
+  long long more_ = 0;
+};
 
 }  // namespace
 
@@ -116,28 +147,37 @@ Diagnostics validate(const Network& net) {
   std::vector<int> degree(n, 0);
   for (std::size_t i = 0; i < net.nodes.size(); ++i) {
     const Node& v = net.nodes[i];
-    const std::string id = item_name(v.id, i);
-    check_number(v.supply, false, "node", id, "supply", out);
-    if (v.x) check_number(*v.x, false, "node", id, "x", out);
-    if (v.y) check_number(*v.y, false, "node", id, "y", out);
-    if (v.label.size() > SizeLimits::kMaxStringLength) out.error("node", id, "label", "label too long");
+    const std::pair<const char*, const double*> numbers[] = {
+        {"supply", &v.supply}, {"x", v.x ? &*v.x : nullptr}, {"y", v.y ? &*v.y : nullptr}};
+    for (const auto& [field, value] : numbers)
+      if (value)
+        if (std::string problem = number_problem(*value, false); !problem.empty())
+          out.error("node", item_name(v.id, i), field, std::move(problem));
+    if (v.label.size() > SizeLimits::kMaxStringLength) out.error("node", item_name(v.id, i), "label", "label too long");
   }
 
+  RepeatedWarning self_loops("arc", "to", "self-loop: the arc starts and ends at the same node", "self-loops");
+  RepeatedWarning zero_arcs("arc", "capacity", "zero capacity: the arc carries nothing", "arcs with zero capacity");
   for (std::size_t i = 0; i < net.arcs.size(); ++i) {
     const Arc& a = net.arcs[i];
-    const std::string id = item_name(a.id, i);
     bool ends_ok = true;
-    if (a.from < 0 || a.from >= n) out.error("arc", id, "from", "refers to an unknown node"), ends_ok = false;
-    if (a.to < 0 || a.to >= n) out.error("arc", id, "to", "refers to an unknown node"), ends_ok = false;
-    check_number(a.capacity, true, "arc", id, "capacity", out);
-    if (a.cost) check_number(*a.cost, false, "arc", id, "cost", out);
-    if (a.transit) check_number(*a.transit, true, "arc", id, "transit", out);
+    if (a.from < 0 || a.from >= n) out.error("arc", item_name(a.id, i), "from", "refers to an unknown node"), ends_ok = false;
+    if (a.to < 0 || a.to >= n) out.error("arc", item_name(a.id, i), "to", "refers to an unknown node"), ends_ok = false;
+    const std::pair<const char*, std::string> numbers[] = {
+        {"capacity", number_problem(a.capacity, true)},
+        {"cost", a.cost ? number_problem(*a.cost, false) : std::string()},
+        {"transit", a.transit ? number_problem(*a.transit, true) : std::string()}};
+    for (const auto& [field, problem] : numbers)
+      if (!problem.empty()) out.error("arc", item_name(a.id, i), field, problem);
     if (a.shared_two_way && a.cost && *a.cost < 0)
-      out.error("arc", id, "cost", "a shared two-way link cannot have a negative cost (it would be a negative cycle)");
-    if (ends_ok && a.from == a.to) out.warning("arc", id, "to", "self-loop: the arc starts and ends at the same node");
-    if (a.capacity == 0.0) out.warning("arc", id, "capacity", "zero capacity: the arc carries nothing");
+      out.error("arc", item_name(a.id, i), "cost",
+                "a shared two-way link cannot have a negative cost (it would be a negative cycle)");
+    if (ends_ok && a.from == a.to) self_loops.add(out, a.id, i);
+    if (a.capacity == 0.0) zero_arcs.add(out, a.id, i);
     if (ends_ok) ++degree[a.from], ++degree[a.to];
   }
+  self_loops.finish(out);
+  zero_arcs.finish(out);
 
   bool demand_ends_ok = true;
   for (std::size_t i = 0; i < net.demands.size(); ++i) {
@@ -148,17 +188,21 @@ Diagnostics validate(const Network& net) {
     if (d.destination < 0 || d.destination >= n)
       out.error("demand", id, "destination", "refers to an unknown node"), ok = false;
     if (ok && d.origin == d.destination) out.error("demand", id, "destination", "is the same node as the origin");
-    if (d.amount) check_number(*d.amount, true, "demand", id, "amount", out);
-    check_number(d.weight, true, "demand", id, "weight", out);
+    const std::pair<const char*, std::string> numbers[] = {
+        {"amount", d.amount ? number_problem(*d.amount, true) : std::string()},
+        {"weight", number_problem(d.weight, true)}};
+    for (const auto& [field, problem] : numbers)
+      if (!problem.empty()) out.error("demand", id, field, problem);
     if (std::isfinite(d.weight) && d.weight <= 0) out.error("demand", id, "weight", "must be positive");
     if (d.label.size() > SizeLimits::kMaxStringLength) out.error("demand", id, "label", "label too long");
     if (ok) ++degree[d.origin], ++degree[d.destination];
     demand_ends_ok = demand_ends_ok && ok;
   }
 
+  RepeatedWarning isolated("node", "", "isolated: no arc or demand touches it", "isolated nodes");
   for (int v = 0; v < n; ++v)
-    if (degree[v] == 0 && net.nodes[v].supply == 0.0)
-      out.warning("node", item_name(net.nodes[v].id, v), "", "isolated: no arc or demand touches it");
+    if (degree[v] == 0 && net.nodes[v].supply == 0.0) isolated.add(out, net.nodes[v].id, v);
+  isolated.finish(out);
 
   if (out.has_errors() || !demand_ends_ok) return out;
 

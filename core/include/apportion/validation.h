@@ -6,7 +6,9 @@
 // negative cost, ids, labels, names and units that are not UTF-8 text, and the size limits
 // of size_limits.h.
 // Warnings (solved anyway): self-loops, zero-capacity arcs, isolated nodes, and demands
-// whose destination cannot be reached from their origin over enabled arcs.
+// whose destination cannot be reached from their origin over enabled arcs. Self-loops,
+// zero-capacity arcs and isolated nodes are named for the first 100 of each; the rest are
+// counted in one line ("and 1999898 more isolated nodes").
 #pragma once
 
 #include <string>
