@@ -3,7 +3,10 @@
 
 #include <algorithm>
 #include <cmath>
+#include <charconv>
 #include <sstream>
+#include <string_view>
+#include <vector>
 #include <unordered_map>
 
 #include "apportion/number_text.h"
@@ -34,6 +37,36 @@ void write_arcs(const Network& net, bool with_costs, Written& w) {
     one(a, a.from, a.to);
     if (a.shared_two_way) one(a, a.to, a.from);
   }
+}
+
+// Whitespace as the C locale's isspace() sees it.
+bool is_space(char c) { return c == ' ' || c == '\t' || c == '\n' || c == '\v' || c == '\f' || c == '\r'; }
+
+std::string_view skip_space(std::string_view s) {
+  std::size_t b = 0;
+  while (b < s.size() && is_space(s[b])) ++b;
+  return s.substr(b);
+}
+
+// The next whitespace-separated token of `rest`, which moves past it. Lines are split by
+// hand rather than by one string stream each: a stream per line made a 10-million-arc file
+// slow to open.
+std::string_view next_token(std::string_view& rest) {
+  rest = skip_space(rest);
+  std::size_t e = 0;
+  while (e < rest.size() && !is_space(rest[e])) ++e;
+  const std::string_view token = rest.substr(0, e);
+  rest.remove_prefix(e);
+  return token;
+}
+
+// A whole token as a decimal integer (an optional sign, then digits).
+bool parse_count(std::string_view token, long long& out) {
+  const char* first = token.data();
+  const char* last = token.data() + token.size();
+  if (first != last && *first == '+') ++first;
+  const auto [end, ec] = std::from_chars(first, last, out);
+  return ec == std::errc() && end == last && first != last;
 }
 
 std::string assemble(const Network& net, const char* kind, const std::string& node_lines, const Written& w) {
@@ -77,8 +110,6 @@ LoadResult read_dimacs(const std::string& text) {
   long long declared_arcs = 0;
   int source = -1, sink = -1;
   std::unordered_map<long long, std::string> arc_ids;
-  std::istringstream in(text);
-  std::string line;
   int lineno = 0;
   auto where = [&lineno] { return std::to_string(lineno); };
   auto node_index = [&](const std::string& tok, const char* field) -> int {
@@ -99,23 +130,26 @@ LoadResult read_dimacs(const std::string& text) {
     return v.value_or(0.0);
   };
 
-  while (std::getline(in, line)) {
+  for (std::size_t pos = 0; pos < text.size();) {
+    std::size_t eol = text.find('\n', pos);
+    if (eol == std::string::npos) eol = text.size();
+    std::string_view rest(text.data() + pos, eol - pos);
+    pos = eol + 1;
     ++lineno;
-    if (!line.empty() && line.back() == '\r') line.pop_back();
-    std::istringstream ls(line);
-    std::string tag;
-    if (!(ls >> tag)) continue;
+    const std::string_view tag_view = next_token(rest);
+    if (tag_view.empty()) continue;
+    const std::string tag(tag_view);
     if (tag == "c") {
-      std::string what;
+      const std::string_view what = next_token(rest);
       long long k = 0;
-      if (ls >> what >> k && (what == "node" || what == "arc")) {
-        std::string id;
-        std::getline(ls >> std::ws, id);
-        const std::string suffix = " (shared two-way)";
-        if (id.size() > suffix.size() && id.compare(id.size() - suffix.size(), suffix.size(), suffix) == 0)
-          id.resize(id.size() - suffix.size());
-        if (what == "node" && k >= 1 && k <= net.node_count() && !id.empty()) net.nodes[k - 1].id = id;
-        if (what == "arc" && !id.empty()) arc_ids[k] = id;
+      if ((what == "node" || what == "arc") && parse_count(next_token(rest), k)) {
+        std::string_view id = skip_space(rest);
+        if (!id.empty() && id.back() == '\r') id.remove_suffix(1);
+        const std::string_view suffix = " (shared two-way)";
+        if (id.size() > suffix.size() && id.substr(id.size() - suffix.size()) == suffix)
+          id.remove_suffix(suffix.size());
+        if (what == "node" && k >= 1 && k <= net.node_count() && !id.empty()) net.nodes[k - 1].id = std::string(id);
+        if (what == "arc" && !id.empty()) arc_ids[k] = std::string(id);
       }
       continue;
     }
@@ -125,7 +159,9 @@ LoadResult read_dimacs(const std::string& text) {
         d.error("line", where(), "p", "a second problem line");
         break;
       }
-      if (!(ls >> kind >> n >> declared_arcs) || (kind != "max" && kind != "min")) {
+      kind = std::string(next_token(rest));
+      if (!parse_count(next_token(rest), n) || !parse_count(next_token(rest), declared_arcs) ||
+          (kind != "max" && kind != "min")) {
         d.error("line", where(), "p", "expected 'p max N M' or 'p min N M'");
         break;
       }
@@ -145,7 +181,7 @@ LoadResult read_dimacs(const std::string& text) {
       break;
     }
     std::vector<std::string> tok;
-    for (std::string t; ls >> t;) tok.push_back(t);
+    for (std::string_view t = next_token(rest); !t.empty() && tok.size() < 6; t = next_token(rest)) tok.emplace_back(t);
     if (tag == "n") {
       if (tok.size() != 2) {
         d.error("line", where(), "n", "expected 'n ID s|t' or 'n ID SUPPLY'");
@@ -199,10 +235,16 @@ LoadResult read_dimacs(const std::string& text) {
     d.warning("file", "", "p", "the problem line declares " + std::to_string(declared_arcs) + " arcs, the file has " +
                                    std::to_string(net.arcs.size()));
   // Ids written by write_dimacs_* repeat for the two lanes of a shared two-way arc: keep
-  // them apart so that the document stays valid.
-  std::unordered_map<std::string, int> seen;
-  for (Arc& a : net.arcs)
-    if (seen[a.id]++ > 0) a.id += "~" + std::to_string(seen[a.id] - 1);
+  // them apart so that the document stays valid. Without "c arc" lines the ids are a1, a2,
+  // ... and cannot repeat (a map of a million ids took most of the time to open such a file).
+  if (!arc_ids.empty()) {
+    std::unordered_map<std::string, int> seen;
+    seen.reserve(net.arcs.size());
+    for (Arc& a : net.arcs) {
+      const int times = seen[a.id]++;
+      if (times > 0) a.id.append("~").append(std::to_string(times));
+    }
+  }
   if (kind == "max") {
     if (source < 0 || sink < 0) {
       d.error("file", "", "n", "a max-flow file needs one 's' and one 't' node line");

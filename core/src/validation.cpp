@@ -2,10 +2,12 @@
 #include "apportion/validation.h"
 
 #include <cmath>
+#include <cstdint>
+#include <functional>
 #include <queue>
 #include <string>
 #include <string_view>
-#include <unordered_set>
+#include <vector>
 
 #include "apportion/size_limits.h"
 
@@ -34,17 +36,30 @@ void check_text(const Items& items, const char* kind, Diagnostics& out) {
   }
 }
 
+// Duplicate ids by open addressing over one array of (hash bits, item index): a node-based
+// hash set made one allocation per item, which dominated opening a 2-million-node DIMACS
+// file; the stored hash bits spare most probes a visit to a far-away item.
 template <class Items>
 void check_ids(const Items& items, const char* kind, Diagnostics& out) {
-  // Views into the items: a copy of every id made opening a 2-million-node file slow.
-  std::unordered_set<std::string_view> seen;
-  seen.reserve(items.size());
+  std::size_t slots = 16;
+  while (slots < 2 * items.size()) slots *= 2;
+  constexpr std::uint64_t kEmpty = ~std::uint64_t{0};
+  std::vector<std::uint64_t> table(slots, kEmpty);
+  const std::hash<std::string_view> hash;
   for (std::size_t i = 0; i < items.size(); ++i) {
     const std::string& id = items[i].id;
     if (id.empty()) {
       out.error(kind, item_name(id, i), "id", "the id is empty");
-    } else if (!seen.insert(id).second) {
-      out.error(kind, item_name(id, i), "id", "duplicate id");
+    } else {
+      const std::uint64_t h = hash(id);  // 32 bits in WebAssembly, 64 natively
+      const std::uint64_t tag = static_cast<std::uint64_t>(h >> 32 ^ (h & 0xFFFFFFFFu)) << 32;
+      std::size_t s = static_cast<std::size_t>(h) & (slots - 1);
+      while (table[s] != kEmpty && ((table[s] & ~0xFFFFFFFFull) != tag || items[table[s] & 0xFFFFFFFFu].id != id))
+        s = (s + 1) & (slots - 1);
+      if (table[s] == kEmpty)
+        table[s] = tag | i;
+      else
+        out.error(kind, item_name(id, i), "id", "duplicate id");
     }
     if (id.size() > SizeLimits::kMaxStringLength)
       out.error(kind, item_name("", i), "id", "longer than " + std::to_string(SizeLimits::kMaxStringLength) + " characters");
