@@ -324,12 +324,31 @@ try {
     check('two tabs: both tabs\' versions are kept', new Set(tabs.map((v) => v.tab)).size >= 2, JSON.stringify(tabs));
     await other.page.close();
 
-    // 9. A full storage is reported, not silent.
-    await b.page.evaluate(() => {
+    // 9. A crash: the renderer dies without running any unload handler; a new tab restores
+    // the last edit from the autosave.
+    const savedBeforeCrash = b.next('edited');
+    await b.act('set node depot label saved before the crash');
+    await savedBeforeCrash;
+    const crashed = b.page.waitForEvent('crash', { timeout: 15000 }).then(() => true, () => false);
+    const cdp = await b.context.newCDPSession(b.page);
+    cdp.send('Page.crash').catch(() => {});
+    const didCrash = await crashed;
+    const revived = instrument(await b.context.newPage());
+    const revivedOpened = revived.next('opened');
+    await revived.page.goto(`${base}/apportion.html`);
+    const ro = await revivedOpened;
+    const saveDl = revived.page.waitForEvent('download');
+    await revived.act('save-network');
+    const savedText = fs.readFileSync(await (await saveDl).path(), 'utf8');
+    check('autosave: after a crash a new tab restores the last edit', didCrash && ro && ro.source === 'autosaved' &&
+          savedText.includes('saved before the crash'), JSON.stringify([didCrash, ro && ro.source]));
+
+    // 10. A full storage is reported, not silent.
+    await revived.page.evaluate(() => {
       Storage.prototype.setItem = function () { throw new DOMException('full', 'QuotaExceededError'); };
     });
-    const quota = b.next('autosave-failed', 10000);
-    await b.act('set node depot label storage is full');
+    const quota = revived.next('autosave-failed', 10000);
+    await revived.act('set node depot label storage is full');
     const q = await quota;
     check('autosave: a full storage is reported in the page', q && q.notice.includes('Autosave failed'), JSON.stringify(q));
     await b.close();
