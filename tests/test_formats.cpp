@@ -107,6 +107,29 @@ TEST_CASE("DIMACS: malformed files are refused with the line", "[dimacs]") {
   CHECK(r.diagnostics.items[0].item_id == "4");  // the line number
 }
 
+TEST_CASE("DIMACS: tabs, CRLF line ends and ids with spaces", "[dimacs]") {
+  // DIMACS separates fields by white space of any kind (common practice, no source).
+  const LoadResult r = read_dimacs("c a comment\r\np\tmax  2\t2 \r\nc node 1 North Gate\r\n"
+                                   "c arc 2 Quay Road (shared two-way)\r\nn 1 s\r\n\r\nn 2\tt\r\n"
+                                   "a\t1 2 +5\r\na 1 2 7.5e0\r\n");
+  REQUIRE(r.ok());
+  const Network& n = *r.network;
+  REQUIRE(n.node_count() == 2);
+  CHECK(n.nodes[0].id == "North Gate");
+  CHECK(n.nodes[1].id == "2");
+  REQUIRE(n.arc_count() == 2);
+  CHECK(n.arcs[0].id == "a1");
+  CHECK(n.arcs[0].capacity == 5.0);
+  CHECK(n.arcs[1].id == "Quay Road");
+  CHECK(n.arcs[1].capacity == 7.5);
+  // Counts on the problem line are whole numbers; anything else names the line.
+  for (const char* bad : {"p max 2.0 1\n", "p max 2 1x\n", "p max 99999999999999999999 1\n", "p max 2\n"}) {
+    const LoadResult b = read_dimacs(bad);
+    REQUIRE(!b.ok());
+    CHECK(b.diagnostics.items[0].item_id == "1");
+  }
+}
+
 TEST_CASE("DIMACS: a declared arc count is not trusted for memory", "[dimacs][limits]") {
   // 10 million arcs declared in a 33-byte file: read as the one arc it has (with a warning),
   // without reserving room for the ten million (about 800 MB).
