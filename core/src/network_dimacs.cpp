@@ -2,12 +2,12 @@
 #include "apportion/network_dimacs.h"
 
 #include <algorithm>
-#include <cmath>
 #include <charconv>
+#include <cmath>
 #include <sstream>
 #include <string_view>
-#include <vector>
 #include <unordered_map>
+#include <vector>
 
 #include "apportion/number_text.h"
 #include "apportion/size_limits.h"
