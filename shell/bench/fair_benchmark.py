@@ -59,10 +59,10 @@ def instance(nodes, links_per_node, demands, seed):
 
 
 def baseline_child(path):
-    from crosscheck_fair import ArcModel
+    from fair_reference import ArcModel
     inst = json.load(open(path))
     start = time.perf_counter()
-    shares = ArcModel(inst).max_min()
+    shares, _rounds = ArcModel(inst).max_min()  # the shares and each demand's freezing round
     print(json.dumps({"ms": 1000 * (time.perf_counter() - start), "shares": shares}))
 
 
