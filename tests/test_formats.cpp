@@ -156,6 +156,36 @@ TEST_CASE("DIMACS: millions of declared isolated nodes give a readable list of w
   CHECK(r.diagnostics.items[100].message == "and 1999898 more isolated nodes");
 }
 
+TEST_CASE("size limits: one past a count limit is refused by name in every format", "[limits]") {
+  // The documented limits (README, core/FORMAT.md): 2,000,000 nodes, 10,000,000 arcs,
+  // 100,000 demands. The fuzz build lowers them (size_limits.h); these tests, built without
+  // that macro, hold the real ones. Items past the limit cost only their bytes here.
+  const LoadResult nodes = read_dimacs("p max 2000001 1\nn 1 s\nn 2 t\na 1 2 5\n");
+  REQUIRE(!nodes.ok());
+  CHECK(nodes.diagnostics.items[0].message == "node or arc count outside the size limits");
+  const LoadResult arcs = read_dimacs("p max 2 10000001\nn 1 s\nn 2 t\na 1 2 5\n");
+  REQUIRE(!arcs.ok());
+  CHECK(arcs.diagnostics.items[0].message == "node or arc count outside the size limits");
+
+  std::string json = R"({"format":"apportion-network","version":1,"nodes":[],"arcs":[],"demands":[{})";
+  for (int i = 0; i < 100'000; ++i) json += ",{}";
+  const LoadResult many = read_network_json(json + "]}");
+  REQUIRE(!many.ok());
+  CHECK(many.diagnostics.items[0].field == "demands");
+  CHECK(many.diagnostics.items[0].message == "too many demands");
+
+  NetworkCsv t;
+  t.nodes = "id\na\nb\n";
+  t.arcs = "id,from,to,capacity\nab,a,b,1\n";
+  t.demands = "id,origin,destination,amount\n";
+  for (int i = 0; i <= 100'000; ++i) t.demands += "d" + std::to_string(i) + ",a,b,1\n";
+  const LoadResult csv = read_network_csv(t);
+  REQUIRE(!csv.ok());
+  CHECK(csv.diagnostics.items[0].message == "the tables exceed the size limits");
+  t.demands.resize(t.demands.rfind("d100000,"));  // exactly 100,000 demands: accepted
+  CHECK(read_network_csv(t).ok());
+}
+
 TEST_CASE("GraphML: keys map to capacity, labels and positions", "[graphml]") {
   // Structure per the GraphML Primer (graphdrawing.org, 2002): <key> declarations, then
   // <graph> with <node> and <edge> holding <data key=...>.
