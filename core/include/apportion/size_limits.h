@@ -11,7 +11,7 @@ struct SizeLimits {
   // Fuzz builds only (the macro is libFuzzer's convention; CMake sets it with APPORTION_FUZZ):
   // counts 100 times lower. A 20-byte DIMACS line may declare 2 million nodes, which takes
   // seconds under the sanitizers and explores no code that 20,000 nodes do not; the limit
-  // errors themselves stay reachable. The unit and command-line tests check the real limits.
+  // errors themselves stay reachable. The unit tests ([limits]) check the real limits.
   static constexpr int kMaxNodes = 20'000;
   static constexpr int kMaxArcs = 100'000;
   static constexpr int kMaxDemands = 1'000;
