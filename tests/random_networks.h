@@ -4,7 +4,7 @@
 #include <cmath>
 #include <random>
 
-#include "apportion/flow_graph.h"
+#include "apportion/flow/flow_graph.h"
 
 namespace apportion::test {
 

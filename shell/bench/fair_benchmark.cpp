@@ -10,8 +10,8 @@
 #include <fstream>
 #include <sstream>
 
-#include "apportion/fair_multiflow.h"
-#include "apportion/network_json.h"
+#include "apportion/formats/network_json.h"
+#include "apportion/multiflow/fair_multiflow.h"
 
 int main(int argc, char** argv) {
   if (argc < 2) {

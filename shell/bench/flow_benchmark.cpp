@@ -17,8 +17,8 @@
 #include <string>
 #include <vector>
 
-#include "apportion/max_flow.h"
-#include "apportion/min_cost_flow.h"
+#include "apportion/flow/max_flow.h"
+#include "apportion/flow/min_cost_flow.h"
 #include "instance_families.h"
 
 #ifdef APPORTION_BENCH_WITH_LEMON

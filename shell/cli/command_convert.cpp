@@ -1,9 +1,9 @@
 // `apportion convert IN --to FORMAT OUT`: write a network in another format.
 #include <iostream>
 
-#include "apportion/network_csv.h"
-#include "apportion/network_dimacs.h"
-#include "apportion/network_json.h"
+#include "apportion/formats/network_csv.h"
+#include "apportion/formats/network_dimacs.h"
+#include "apportion/formats/network_json.h"
 #include "commands.h"
 #include "network_loader.h"
 

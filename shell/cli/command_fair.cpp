@@ -3,10 +3,10 @@
 #include <iostream>
 #include <sstream>
 
-#include "apportion/fair_multiflow.h"
-#include "apportion/flow_result_export.h"
-#include "apportion/multiflow_result_export.h"
-#include "apportion/number_text.h"
+#include "apportion/model/number_text.h"
+#include "apportion/multiflow/fair_multiflow.h"
+#include "apportion/results/flow_result_export.h"
+#include "apportion/results/multiflow_result_export.h"
 #include "commands.h"
 #include "network_loader.h"
 #include "text_table.h"

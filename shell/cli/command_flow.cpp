@@ -2,11 +2,11 @@
 #include <iostream>
 #include <sstream>
 
-#include "apportion/flow_decomposition.h"
-#include "apportion/flow_result_export.h"
-#include "apportion/max_flow.h"
-#include "apportion/min_cost_flow.h"
-#include "apportion/number_text.h"
+#include "apportion/flow/flow_decomposition.h"
+#include "apportion/flow/max_flow.h"
+#include "apportion/flow/min_cost_flow.h"
+#include "apportion/model/number_text.h"
+#include "apportion/results/flow_result_export.h"
 #include "commands.h"
 #include "network_loader.h"
 #include "text_table.h"

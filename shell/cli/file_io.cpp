@@ -10,7 +10,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
-#include "apportion/size_limits.h"
+#include "apportion/model/size_limits.h"
 
 namespace apportion::cli {
 

@@ -3,11 +3,11 @@
 
 #include <iostream>
 
-#include "apportion/network_csv.h"
-#include "apportion/network_dimacs.h"
-#include "apportion/network_graphml.h"
-#include "apportion/network_json.h"
-#include "apportion/number_text.h"
+#include "apportion/formats/network_csv.h"
+#include "apportion/formats/network_dimacs.h"
+#include "apportion/formats/network_graphml.h"
+#include "apportion/formats/network_json.h"
+#include "apportion/model/number_text.h"
 
 namespace apportion::cli {
 

@@ -6,7 +6,7 @@
 #include <optional>
 #include <string>
 
-#include "apportion/load_result.h"
+#include "apportion/formats/load_result.h"
 #include "cli_args.h"
 #include "file_io.h"
 

@@ -10,14 +10,14 @@
 #include <cstdlib>
 #include <string>
 
-#include "apportion/fair_multiflow.h"
-#include "apportion/multiflow_result_import.h"
-#include "apportion/network_csv.h"
-#include "apportion/network_dimacs.h"
-#include "apportion/network_graphml.h"
-#include "apportion/network_json.h"
-#include "apportion/validation.h"
-#include "file_payload.h"
+#include "apportion/formats/network_csv.h"
+#include "apportion/formats/network_dimacs.h"
+#include "apportion/formats/network_graphml.h"
+#include "apportion/formats/network_json.h"
+#include "apportion/model/validation.h"
+#include "apportion/multiflow/fair_multiflow.h"
+#include "apportion/results/multiflow_result_import.h"
+#include "browser/file_payload.h"
 
 using namespace apportion;
 

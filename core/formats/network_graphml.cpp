@@ -1,0 +1,140 @@
+// GraphML import through pugixml; see network_graphml.h.
+#include "apportion/formats/network_graphml.h"
+
+#include <pugixml.hpp>
+#include <unordered_map>
+
+#include "apportion/model/number_text.h"
+#include "apportion/model/size_limits.h"
+#include "apportion/model/validation.h"
+
+namespace apportion {
+
+LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) {
+  LoadResult result;
+  Diagnostics& d = result.diagnostics;
+  if (text.size() > SizeLimits::kMaxFileBytes) {
+    d.error("file", "", "", "larger than the limit of 512 MiB");
+    return result;
+  }
+  pugi::xml_document doc;
+  // No DTD or entity expansion is ever done by pugixml: no billion-laughs risk.
+  pugi::xml_parse_result parsed = doc.load_buffer(text.data(), text.size(), pugi::parse_default);
+  if (!parsed) {
+    d.error("file", "", "", std::string("not well-formed XML: ") + parsed.description() + " at byte " +
+                                std::to_string(parsed.offset));
+    return result;
+  }
+  pugi::xml_node root = doc.child("graphml");
+  pugi::xml_node graph = root.child("graph");
+  if (!root || !graph) {
+    d.error("file", "", "", "no <graphml><graph> element");
+    return result;
+  }
+  // key id -> attribute name, per domain
+  std::unordered_map<std::string, std::string> node_keys, edge_keys;
+  for (pugi::xml_node key : root.children("key")) {
+    const std::string dom = key.attribute("for").as_string("all");
+    const std::string id = key.attribute("id").as_string();
+    const std::string name = key.attribute("attr.name").as_string(id.c_str());
+    if (dom == "node" || dom == "all") node_keys[id] = name;
+    if (dom == "edge" || dom == "all") edge_keys[id] = name;
+  }
+  const bool undirected_default = std::string(graph.attribute("edgedefault").as_string("directed")) == "undirected";
+
+  Network net;
+  net.name = graph.attribute("id").as_string();
+  std::unordered_map<std::string, int> index;
+  auto read_data = [&](pugi::xml_node item, const std::unordered_map<std::string, std::string>& keys) {
+    std::unordered_map<std::string, std::string> values;
+    for (pugi::xml_node data : item.children("data")) {
+      auto it = keys.find(data.attribute("key").as_string());
+      if (it != keys.end()) values[it->second] = data.text().as_string();
+    }
+    return values;
+  };
+  auto number = [&](const std::unordered_map<std::string, std::string>& values, const char* name, const char* kind,
+                    const std::string& id) -> std::optional<double> {
+    auto it = values.find(name);
+    if (it == values.end() || it->second.empty()) return std::nullopt;
+    std::string why;
+    auto v = parse_number(it->second, &why);
+    if (!v) d.error(kind, id, name, "'" + it->second + "' " + why);
+    return v;
+  };
+
+  for (pugi::xml_node node : graph.children("node")) {
+    if (net.node_count() >= SizeLimits::kMaxNodes) {
+      d.error("file", "", "nodes", "more nodes than the size limit");
+      return result;
+    }
+    Node v;
+    v.id = node.attribute("id").as_string();
+    auto values = read_data(node, node_keys);
+    if (auto it = values.find("label"); it != values.end())
+      v.label = it->second;
+    else if (auto nit = values.find("name"); nit != values.end())
+      v.label = nit->second;
+    v.x = number(values, "x", "node", v.id);
+    v.y = number(values, "y", "node", v.id);
+    if (!v.x && !v.y) {
+      auto lon = number(values, "Longitude", "node", v.id);
+      auto lat = number(values, "Latitude", "node", v.id);
+      if (lon && lat) v.x = *lon, v.y = -*lat;
+    }
+    if (!v.id.empty() && !index.emplace(v.id, net.node_count()).second) {
+      d.error("node", v.id, "id", "duplicate id");
+      continue;
+    }
+    net.nodes.push_back(std::move(v));
+  }
+  int defaulted = 0, count = 0;
+  for (pugi::xml_node edge : graph.children("edge")) {
+    ++count;
+    if (net.arc_count() >= SizeLimits::kMaxArcs) {
+      d.error("file", "", "edges", "more edges than the size limit");
+      return result;
+    }
+    std::string id = edge.attribute("id").as_string();
+    if (id.empty()) id = "e" + std::to_string(count);
+    Arc a;
+    a.id = id;
+    for (const char* end : {"source", "target"}) {
+      const std::string ref = edge.attribute(end).as_string();
+      auto it = index.find(ref);
+      if (it == index.end()) {
+        d.error("edge", id, end, ref.empty() ? "is missing" : "refers to unknown node '" + ref + "'");
+      } else {
+        (end[0] == 's' ? a.from : a.to) = it->second;
+      }
+    }
+    auto values = read_data(edge, edge_keys);
+    auto cap = number(values, options.capacity_attribute.c_str(), "edge", id);
+    if (!cap) ++defaulted;
+    a.capacity = cap.value_or(options.default_capacity);
+    a.cost = number(values, "cost", "edge", id);
+    a.transit = number(values, "transit", "edge", id);
+    pugi::xml_attribute directed = edge.attribute("directed");
+    const bool undirected = directed ? !directed.as_bool() : undirected_default;
+    if (undirected && options.undirected_as_pairs) {
+      Arc back = a;
+      std::swap(back.from, back.to);
+      back.id = id + "-rev";
+      net.arcs.push_back(std::move(a));
+      net.arcs.push_back(std::move(back));
+    } else {
+      a.shared_two_way = undirected;
+      net.arcs.push_back(std::move(a));
+    }
+  }
+  if (defaulted > 0)
+    d.warning("file", "", options.capacity_attribute,
+              std::to_string(defaulted) + " of " + std::to_string(count) + " edges have no '" +
+                  options.capacity_attribute + "' attribute; they got the default capacity " +
+                  format_number(options.default_capacity));
+  d.append(validate(net));
+  if (!d.has_errors()) result.network = std::move(net);
+  return result;
+}
+
+}  // namespace apportion

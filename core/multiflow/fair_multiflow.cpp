@@ -1,0 +1,613 @@
+// The fair-multiflow engine; see fair_multiflow.h for the method and multiflow.h for the
+// definitions.
+#include "apportion/multiflow/fair_multiflow.h"
+
+#include <algorithm>
+#include <cmath>
+#include <queue>
+
+#include "apportion/flow/flow_graph.h"
+#include "apportion/model/number_text.h"
+#include "apportion/model/tolerance.h"
+#include "apportion/multiflow/path_master.h"
+
+namespace apportion {
+
+const char* objective_name(FairObjective o) {
+  switch (o) {
+    case FairObjective::kFeasibility: return "feasibility";
+    case FairObjective::kMaxThroughput: return "max-throughput";
+    case FairObjective::kMaxConcurrent: return "max-concurrent";
+    case FairObjective::kMaxMinFair: return "max-min-fair";
+    case FairObjective::kTradeoff: return "tradeoff";
+  }
+  return "unknown";
+}
+
+bool objective_from_name(const std::string& name, FairObjective& out) {
+  for (FairObjective o : {FairObjective::kFeasibility, FairObjective::kMaxThroughput, FairObjective::kMaxConcurrent,
+                          FairObjective::kMaxMinFair, FairObjective::kTradeoff})
+    if (name == objective_name(o)) return out = o, true;
+  return false;
+}
+
+namespace {
+
+constexpr double kInf = LpSolver::kInf;
+
+// Everything one solve needs: the graph, the demands and the master LP.
+class Engine {
+ public:
+  Engine(const Network& net, const FairOptions& opt)
+      : net_(net),
+        opt_(opt),
+        g_(FlowGraph::from_network(net)),
+        specs_(make_specs(net)),
+        master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
+        demand_tol_(demand_tolerances()) {
+    master_.lp().set_hot_start(opt.hot_start);
+  }
+
+  MultiflowResult run();
+
+ private:
+  static std::vector<DemandSpec> make_specs(const Network& net) {
+    std::vector<DemandSpec> s;
+    for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(kInf), d.weight});
+    return s;
+  }
+  std::vector<Tolerance> demand_tolerances() const;
+  int K() const { return static_cast<int>(specs_.size()); }
+  LpSolver& lp() { return master_.lp(); }
+  bool solve(MultiflowResult& r) {
+    const LpStatus s = master_.solve();
+    if (opt_.on_progress) {
+      progress_.demands = K();
+      progress_.lp_solves = master_.stats().lp_solves;
+      opt_.on_progress(progress_);
+    }
+    if (s == LpStatus::kOptimal) return true;
+    r.status = SolveStatus::kNumericalDifficulty;
+    r.message = std::string("the LP solver reported '") + lp_status_name(s) + "' (" + lp().last_message() + ")";
+    return false;
+  }
+  // Shares: bounds of f_k; all level rows off; no objective.
+  void reset_objective() {
+    lp().set_cost(master_.level_column(), 0.0);
+    lp().set_column_bounds(master_.level_column(), 0.0, kInf);
+    for (int k = 0; k < K(); ++k) {
+      lp().set_cost(master_.share_column(k), 0.0);
+      lp().set_row_bounds(master_.level_row(k), -kInf, kInf);
+      lp().set_coefficient(master_.level_row(k), master_.level_column(), -specs_[k].weight);
+    }
+    master_.set_route_costs(false);
+  }
+  void share_bounds(int k, double lo, double hi) {
+    if (!master_.reachable(k)) lo = hi = 0.0;
+    lp().set_column_bounds(master_.share_column(k), lo, std::max(lo, hi));
+  }
+
+  bool max_min(MultiflowResult& r, std::vector<double>& fair);
+  bool max_throughput(MultiflowResult& r, bool finite_only, double& value);
+  bool max_concurrent(MultiflowResult& r, double& lambda);
+  bool tidy_routes(MultiflowResult& r);
+  void collect(MultiflowResult& r, const std::vector<double>* fixed_shares);
+  void explain_tiers(MultiflowResult& r);
+  void feasibility_certificate(MultiflowResult& r);
+  void totals(MultiflowResult& r);
+
+  const Network& net_;
+  FairOptions opt_;
+  FlowGraph g_;
+  std::vector<DemandSpec> specs_;
+  PathMaster master_;
+  std::vector<Tolerance> demand_tol_;  // per demand: 1e-9 of its own scale (demand_tolerances)
+  std::vector<double> concurrent_lengths_;
+  SolveProgress progress_;
+};
+
+// Whether a demand's share is zero, reached its amount or grew is judged at the demand's own
+// scale: the bottleneck of its widest path, or its amount if smaller. A global scale (the
+// largest capacity) would call a 0.001 share "zero" in a network with 1e9 arcs and freeze it
+// there. Demands that cannot be served use the smallest positive capacity.
+std::vector<Tolerance> Engine::demand_tolerances() const {
+  const double found = net_.positive_capacities().smallest;
+  const double smallest = found > 0 ? found : 1.0;
+  const std::vector<Lane>& lanes = master_.lanes();
+  std::vector<std::vector<int>> out(g_.node_count());
+  for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
+  std::vector<std::vector<int>> by_origin(g_.node_count());
+  for (int k = 0; k < K(); ++k) by_origin[specs_[k].origin].push_back(k);
+  std::vector<Tolerance> tols(K(), Tolerance(1e-9 * smallest));
+  std::vector<double> width(g_.node_count());
+  for (int o = 0; o < g_.node_count(); ++o) {
+    if (by_origin[o].empty()) continue;
+    // Widest paths from o: Dijkstra with min() for the path and max() for the choice.
+    std::fill(width.begin(), width.end(), 0.0);
+    width[o] = kInf;
+    std::priority_queue<std::pair<double, int>> heap;
+    heap.push({kInf, o});
+    while (!heap.empty()) {
+      const auto [w, u] = heap.top();
+      heap.pop();
+      if (w < width[u]) continue;
+      for (int i : out[u]) {
+        const double through = std::min(w, g_.capacity(lanes[i].arc));
+        if (through > width[lanes[i].head]) width[lanes[i].head] = through, heap.push({through, lanes[i].head});
+      }
+    }
+    for (int k : by_origin[o]) {
+      const double scale = std::min(width[specs_[k].destination], specs_[k].amount);
+      if (scale > 0) tols[k] = Tolerance(1e-9 * scale);
+    }
+  }
+  return tols;
+}
+
+// Progressive filling with exact freezing; fills r.tiers and r.demands[k].tier and
+// limited_by_amount, and `fair` with the shares.
+bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
+  reset_objective();
+  fair.assign(K(), 0.0);
+  std::vector<char> frozen(K(), 0);
+  std::vector<int> unreachable;
+  for (int k = 0; k < K(); ++k) {
+    share_bounds(k, 0.0, specs_[k].amount);
+    if (!master_.reachable(k)) frozen[k] = 1, unreachable.push_back(k);
+  }
+  const int level = master_.level_column();
+  progress_.stage = "max-min fair";
+  for (int round = 1;; ++round) {
+    progress_.round = round;
+    std::vector<int> open;
+    for (int k = 0; k < K(); ++k)
+      if (!frozen[k]) open.push_back(k);
+    if (open.empty()) break;
+    double cap_t = kInf, weight_sum = 0.0;
+    for (int k : open) {
+      cap_t = std::min(cap_t, specs_[k].amount / specs_[k].weight);
+      weight_sum += specs_[k].weight;
+      lp().set_row_bounds(master_.level_row(k), 0.0, kInf);
+    }
+    lp().set_cost(level, -1.0);
+    lp().set_column_bounds(level, 0.0, cap_t);
+    if (!solve(r)) return false;
+    const double t = lp().value(level);
+
+    Tier tier;
+    tier.level = t;
+    const double dual_tol = 1e-9 / weight_sum;
+    for (int a = 0; a < g_.arc_count(); ++a) {
+      const int row = master_.capacity_row(a);
+      if (row >= 0 && -lp().row_dual(row) > dual_tol) {
+        tier.binding_arcs.push_back(a);
+        tier.binding_prices.push_back(-lp().row_dual(row));
+      }
+    }
+    std::vector<int> freeze, undecided;
+    for (int k : open) {
+      const bool at_amount = std::isfinite(specs_[k].amount) && !demand_tol_[k].less(t * specs_[k].weight, specs_[k].amount);
+      if (at_amount) {
+        r.demands[k].limited_by_amount = true;
+        freeze.push_back(k);
+      } else if (lp().row_dual(master_.level_row(k)) > dual_tol) {
+        freeze.push_back(k);
+      } else {
+        undecided.push_back(k);
+      }
+    }
+    // Zero duals prove nothing: settle these demands by the sum test (fair_multiflow.h).
+    if (!undecided.empty()) {
+      lp().set_cost(level, 0.0);
+      lp().set_column_bounds(level, t, t);
+      while (!undecided.empty()) {
+        for (int k : undecided) lp().set_cost(master_.share_column(k), -1.0);
+        ++r.stats.saturation_tests;
+        if (!solve(r)) return false;
+        std::vector<int> still;
+        bool any_grew = false;
+        for (int k : undecided) {
+          if (demand_tol_[k].greater(lp().value(master_.share_column(k)), specs_[k].weight * t)) {
+            any_grew = true;
+            lp().set_cost(master_.share_column(k), 0.0);
+          } else {
+            still.push_back(k);
+          }
+        }
+        if (!any_grew) {
+          // The arcs that stop this group are the binding ones of this final test.
+          for (int a = 0; a < g_.arc_count(); ++a) {
+            const int row = master_.capacity_row(a);
+            if (row < 0 || -lp().row_dual(row) <= dual_tol ||
+                std::find(tier.binding_arcs.begin(), tier.binding_arcs.end(), a) != tier.binding_arcs.end())
+              continue;
+            tier.binding_arcs.push_back(a);
+            tier.binding_prices.push_back(-lp().row_dual(row));
+          }
+          freeze.insert(freeze.end(), still.begin(), still.end());
+          for (int k : still) lp().set_cost(master_.share_column(k), 0.0);
+          break;
+        }
+        undecided = still;
+      }
+    }
+    if (freeze.empty()) {
+      r.status = SolveStatus::kNumericalDifficulty;
+      r.message = "no demand could be frozen at level " + std::to_string(t) + " (tolerances too tight for this data)";
+      return false;
+    }
+    // Demands no path can serve freeze at 0 with the first round that reaches level 0, or
+    // form the first tier of their own.
+    if (!unreachable.empty()) {
+      bool level_zero = true;  // zero for every demand of this round, at its own scale
+      for (int k : freeze) level_zero = level_zero && demand_tol_[k].zero(t * specs_[k].weight);
+      if (level_zero) {
+        freeze.insert(freeze.end(), unreachable.begin(), unreachable.end());
+      } else {
+        Tier zero;
+        zero.index = static_cast<int>(r.tiers.size()) + 1;
+        zero.demands = unreachable;
+        for (int k : unreachable) r.demands[k].tier = zero.index;
+        r.tiers.push_back(zero);
+      }
+      unreachable.clear();
+    }
+    tier.index = static_cast<int>(r.tiers.size()) + 1;
+    std::sort(freeze.begin(), freeze.end());
+    for (int k : freeze) {
+      frozen[k] = 1;
+      fair[k] = master_.reachable(k) ? std::min(specs_[k].amount, specs_[k].weight * t) : 0.0;
+      share_bounds(k, fair[k], fair[k]);
+      lp().set_row_bounds(master_.level_row(k), -kInf, kInf);
+      r.demands[k].tier = tier.index;
+    }
+    tier.demands = freeze;
+    progress_.demands_settled += static_cast<int>(freeze.size());
+    r.tiers.push_back(tier);
+    lp().set_column_bounds(level, 0.0, kInf);
+  }
+  if (!unreachable.empty()) {  // every demand is unreachable
+    Tier zero;
+    zero.index = 1;
+    zero.demands = unreachable;
+    for (int k : unreachable) r.demands[k].tier = 1;
+    r.tiers.push_back(zero);
+  }
+  lp().set_cost(level, 0.0);
+  return true;
+}
+
+bool Engine::max_throughput(MultiflowResult& r, bool finite_only, double& value) {
+  progress_.stage = "max throughput";
+  reset_objective();
+  for (int k = 0; k < K(); ++k) {
+    const bool take = !finite_only || std::isfinite(specs_[k].amount);
+    share_bounds(k, 0.0, take ? specs_[k].amount : 0.0);
+    lp().set_cost(master_.share_column(k), -1.0);
+  }
+  if (!solve(r)) return false;
+  value = -lp().objective();
+  return true;
+}
+
+bool Engine::max_concurrent(MultiflowResult& r, double& lambda) {
+  progress_.stage = "max concurrent flow";
+  reset_objective();
+  double total = 0.0;
+  for (int k = 0; k < K(); ++k) {
+    share_bounds(k, 0.0, kInf);
+    if (std::isfinite(specs_[k].amount)) {
+      total += specs_[k].amount;
+      lp().set_row_bounds(master_.level_row(k), 0.0, kInf);
+      lp().set_coefficient(master_.level_row(k), master_.level_column(), -specs_[k].amount);
+    }
+  }
+  if (!(total > 0)) {  // amounts are >= 0 (validated): any positive one will do
+    r.status = SolveStatus::kBadInput;
+    r.message = "max concurrent flow needs at least one demand with a positive amount";
+    return false;
+  }
+  lp().set_cost(master_.level_column(), -1.0);
+  if (!solve(r)) return false;
+  lambda = lp().value(master_.level_column());
+  concurrent_lengths_.assign(g_.arc_count(), 0.0);
+  for (int a = 0; a < g_.arc_count(); ++a)
+    if (master_.capacity_row(a) >= 0) concurrent_lengths_[a] = std::max(0.0, -lp().row_dual(master_.capacity_row(a)));
+  return true;
+}
+
+// With the shares fixed where the caller left them, route with the fewest arcs in total:
+// among equally fair routings, the one a planner would draw.
+bool Engine::tidy_routes(MultiflowResult& r) {
+  progress_.stage = "routes";
+  lp().set_cost(master_.level_column(), 0.0);
+  for (int k = 0; k < K(); ++k) lp().set_cost(master_.share_column(k), 0.0);
+  master_.set_route_costs(true);
+  const bool ok = solve(r);
+  master_.set_route_costs(false);
+  return ok;
+}
+
+void Engine::collect(MultiflowResult& r, const std::vector<double>* fixed_shares) {
+  const std::vector<Lane>& lanes = master_.lanes();
+  r.arcs.assign(g_.arc_count(), ArcLoad{});
+  std::vector<std::vector<double>> per(g_.arc_count());
+  for (const MasterPath& p : master_.paths()) {
+    const double x = lp().value(p.column);
+    if (!demand_tol_[p.demand].positive(x)) continue;
+    PathShare ps;
+    ps.amount = x;
+    ps.nodes.push_back(lanes[p.lanes.front()].tail);
+    for (int l : p.lanes) {
+      ps.arcs.push_back(lanes[l].arc);
+      ps.nodes.push_back(lanes[l].head);
+      ArcLoad& load = r.arcs[lanes[l].arc];
+      load.load += x;
+      const double signed_x = lanes[l].reverse ? -x : x;
+      auto it = std::find_if(load.per_demand.begin(), load.per_demand.end(),
+                             [&](const auto& e) { return e.first == p.demand; });
+      if (it == load.per_demand.end())
+        load.per_demand.push_back({p.demand, signed_x});
+      else
+        it->second += signed_x;
+    }
+    r.demands[p.demand].paths.push_back(std::move(ps));
+  }
+  for (int a = 0; a < g_.arc_count(); ++a) {
+    ArcLoad& load = r.arcs[a];
+    std::sort(load.per_demand.begin(), load.per_demand.end());
+    load.utilisation = g_.capacity(a) > 0 ? load.load / g_.capacity(a) : 0.0;
+  }
+  for (int k = 0; k < K(); ++k) {
+    DemandShare& d = r.demands[k];
+    // Ties broken by route, so that the order is the same with every standard library.
+    std::sort(d.paths.begin(), d.paths.end(), [](const PathShare& a, const PathShare& b) {
+      return a.amount != b.amount ? a.amount > b.amount : a.arcs < b.arcs;
+    });
+    d.share = fixed_shares ? (*fixed_shares)[k] : lp().value(master_.share_column(k));
+    if (demand_tol_[k].zero(d.share)) d.share = 0.0;
+    d.normalised = d.share / specs_[k].weight;
+    d.percent_of_amount = std::isfinite(specs_[k].amount)
+                              ? (specs_[k].amount > 0 ? 100.0 * d.share / specs_[k].amount : 100.0)
+                              : -1.0;
+  }
+}
+
+// Per demand: the binding arcs of its tier, and whether they cut its origin from its
+// destination (then the origin side is reported as the cut).
+void Engine::explain_tiers(MultiflowResult& r) {
+  const std::vector<Lane>& lanes = master_.lanes();
+  std::vector<std::vector<int>> out(g_.node_count());
+  for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
+  for (const Tier& tier : r.tiers) {
+    std::vector<char> binding(g_.arc_count(), 0);
+    for (std::size_t i = 0; i < tier.binding_arcs.size(); ++i) {
+      const int a = tier.binding_arcs[i];
+      binding[a] = 1;
+      ArcLoad& load = r.arcs[a];
+      if (load.tier == 0) load.tier = tier.index, load.shadow_price = tier.binding_prices[i];
+    }
+    for (int k : tier.demands) {
+      DemandShare& d = r.demands[k];
+      if (d.limited_by_amount) continue;
+      std::vector<char> seen(g_.node_count(), 0);
+      std::vector<int> stack{specs_[k].origin};
+      seen[specs_[k].origin] = 1;
+      while (!stack.empty()) {
+        const int u = stack.back();
+        stack.pop_back();
+        for (int i : out[u])
+          if (!binding[lanes[i].arc] && !seen[lanes[i].head]) seen[lanes[i].head] = 1, stack.push_back(lanes[i].head);
+      }
+      d.binding_arcs_form_cut = !seen[specs_[k].destination];
+      if (d.binding_arcs_form_cut) {
+        for (int v = 0; v < g_.node_count(); ++v)
+          if (seen[v]) d.cut_source_side.push_back(v);
+        for (int a : tier.binding_arcs) {
+          const bool crosses = (seen[g_.tail(a)] && !seen[g_.head(a)]) || (g_.two_way(a) && seen[g_.head(a)] && !seen[g_.tail(a)]);
+          if (crosses) d.binding_arcs.push_back(a);
+        }
+      } else {
+        for (const PathShare& p : d.paths)
+          for (int a : p.arcs)
+            if (binding[a] && std::find(d.binding_arcs.begin(), d.binding_arcs.end(), a) == d.binding_arcs.end())
+              d.binding_arcs.push_back(a);
+        std::sort(d.binding_arcs.begin(), d.binding_arcs.end());
+      }
+    }
+  }
+}
+
+void Engine::feasibility_certificate(MultiflowResult& r) {
+  r.dual_lengths = concurrent_lengths_;
+  const std::vector<Lane>& lanes = master_.lanes();
+  std::vector<char> usable(g_.arc_count());
+  for (int a = 0; a < g_.arc_count(); ++a) usable[a] = g_.capacity(a) > 0;
+  PathPricer pricer(g_, usable, opt_.routing.hop_limit);
+  r.certificate_capacity = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a) r.certificate_capacity += g_.capacity(a) * r.dual_lengths[a];
+  r.certificate_demand = 0.0;
+  for (int k = 0; k < K(); ++k) {
+    if (!std::isfinite(specs_[k].amount)) continue;
+    pricer.search(specs_[k].origin, r.dual_lengths);
+    const double dist = pricer.distance(specs_[k].destination);
+    if (std::isfinite(dist)) r.certificate_demand += specs_[k].amount * dist;
+  }
+  // An overloaded cut, if the arcs with positive length form one around some origin.
+  std::vector<std::vector<int>> out(g_.node_count());
+  for (int i = 0; i < static_cast<int>(lanes.size()); ++i) out[lanes[i].tail].push_back(i);
+  double best_ratio = 1.0, longest = 0.0;
+  for (double l : r.dual_lengths) longest = std::max(longest, l);
+  const Tolerance length_tol(1e-9 * longest);  // lengths scale as 1 / capacity: judge them among themselves
+  for (int o = 0; o < g_.node_count(); ++o) {
+    bool is_origin = false;
+    for (const DemandSpec& s : specs_) is_origin |= s.origin == o && std::isfinite(s.amount);
+    if (!is_origin) continue;
+    std::vector<char> seen(g_.node_count(), 0);
+    std::vector<int> stack{o};
+    seen[o] = 1;
+    while (!stack.empty()) {
+      const int u = stack.back();
+      stack.pop_back();
+      for (int i : out[u])
+        if (!length_tol.positive(r.dual_lengths[lanes[i].arc]) && !seen[lanes[i].head])
+          seen[lanes[i].head] = 1, stack.push_back(lanes[i].head);
+    }
+    double demand = 0.0, capacity = 0.0;
+    for (const DemandSpec& s : specs_)
+      if (std::isfinite(s.amount) && seen[s.origin] && !seen[s.destination]) demand += s.amount;
+    for (int a = 0; a < g_.arc_count(); ++a)
+      if ((seen[g_.tail(a)] && !seen[g_.head(a)]) || (g_.two_way(a) && seen[g_.head(a)] && !seen[g_.tail(a)]))
+        capacity += g_.capacity(a);
+    if (Tolerance::for_scale(std::max(demand, capacity), 1e-9).greater(demand, capacity) &&
+        (capacity == 0 || demand / capacity > best_ratio)) {
+      best_ratio = capacity == 0 ? kInf : demand / capacity;
+      r.overloaded_cut_source_side.clear();
+      for (int v = 0; v < g_.node_count(); ++v)
+        if (seen[v]) r.overloaded_cut_source_side.push_back(v);
+      r.overloaded_cut_capacity = capacity;
+      r.overloaded_cut_demand = demand;
+    }
+  }
+}
+
+void Engine::totals(MultiflowResult& r) {
+  double sum = 0.0, sum_sq = 0.0, min_norm = kInf;
+  r.throughput = 0.0;
+  for (const DemandShare& d : r.demands) {
+    r.throughput += d.share;
+    sum += d.normalised;
+    sum_sq += d.normalised * d.normalised;
+    min_norm = std::min(min_norm, d.normalised);
+  }
+  r.min_normalised_share = r.demands.empty() ? 0.0 : min_norm;
+  // Jain's index of the normalised shares; equal shares (all zero included) give 1.
+  r.jain_index = sum_sq > 0 ? sum * sum / (static_cast<double>(r.demands.size()) * sum_sq) : 1.0;
+  if (r.max_throughput >= 0)
+    r.price_of_fairness = r.max_throughput > 0 ? (r.max_throughput - r.throughput) / r.max_throughput : 0.0;
+}
+
+MultiflowResult Engine::run() {
+  MultiflowResult r;
+  r.objective = opt_.objective;
+  r.demands.assign(K(), DemandShare{});
+  std::vector<double> fair;
+  double value = 0.0;
+  switch (opt_.objective) {
+    case FairObjective::kMaxMinFair: {
+      if (!max_min(r, fair)) return r;
+      for (int k = 0; k < K(); ++k) share_bounds(k, fair[k], fair[k]);
+      if (!tidy_routes(r)) return r;
+      collect(r, &fair);
+      explain_tiers(r);
+      if (opt_.compare_throughput) {
+        if (!max_throughput(r, false, value)) return r;
+        r.max_throughput = value;
+      }
+      break;
+    }
+    case FairObjective::kTradeoff: {
+      if (!max_min(r, fair)) return r;
+      progress_.stage = "throughput with a fairness floor";
+      reset_objective();
+      const double keep = 1.0 - std::clamp(opt_.epsilon, 0.0, 1.0);
+      for (int k = 0; k < K(); ++k) {
+        share_bounds(k, keep * fair[k], specs_[k].amount);
+        lp().set_cost(master_.share_column(k), -1.0);
+      }
+      if (!solve(r)) return r;
+      std::vector<double> shares(K());
+      for (int k = 0; k < K(); ++k) shares[k] = lp().value(master_.share_column(k)), share_bounds(k, shares[k], shares[k]);
+      if (!tidy_routes(r)) return r;
+      collect(r, &shares);
+      explain_tiers(r);
+      if (!max_throughput(r, false, value)) return r;
+      r.max_throughput = value;
+      break;
+    }
+    case FairObjective::kMaxThroughput: {
+      if (!max_throughput(r, false, value)) return r;
+      std::vector<double> shares(K());
+      for (int k = 0; k < K(); ++k) shares[k] = lp().value(master_.share_column(k)), share_bounds(k, shares[k], shares[k]);
+      if (!tidy_routes(r)) return r;
+      collect(r, &shares);
+      r.max_throughput = value;
+      break;
+    }
+    case FairObjective::kMaxConcurrent:
+    case FairObjective::kFeasibility: {
+      double lambda = 0.0;
+      if (!max_concurrent(r, lambda)) return r;
+      r.lambda = lambda;
+      // Route exactly lambda * amount for each demand with an amount; the others get nothing.
+      std::vector<double> shares(K(), 0.0);
+      for (int k = 0; k < K(); ++k) {
+        shares[k] = std::isfinite(specs_[k].amount) && master_.reachable(k) ? lambda * specs_[k].amount : 0.0;
+        if (opt_.objective == FairObjective::kFeasibility && std::isfinite(specs_[k].amount))
+          shares[k] = std::min(lambda, 1.0) * specs_[k].amount;
+      }
+      if (opt_.objective == FairObjective::kFeasibility) {
+        r.all_demands_met = !Tolerance(1e-9).less(lambda, 1.0);  // lambda is a ratio
+        feasibility_certificate(r);
+        double delivered = 0.0, asked = 0.0;
+        for (const DemandSpec& s : specs_)
+          if (std::isfinite(s.amount)) asked += s.amount;
+        if (!max_throughput(r, true, delivered)) return r;
+        r.max_throughput = delivered;
+        r.shortfall = r.all_demands_met ? 0.0 : std::max(0.0, asked - delivered);
+      }
+      reset_objective();
+      for (int k = 0; k < K(); ++k) share_bounds(k, shares[k], shares[k]);
+      if (!tidy_routes(r)) return r;
+      collect(r, &shares);
+      break;
+    }
+  }
+  totals(r);
+  if (opt_.objective == FairObjective::kFeasibility) r.price_of_fairness = -1.0;
+  const MultiflowStats& ms = master_.stats();
+  r.stats.lp_solves = ms.lp_solves;
+  r.stats.simplex_iterations = ms.simplex_iterations;
+  r.stats.pricing_rounds = ms.pricing_rounds;
+  r.stats.path_columns = ms.path_columns;
+  r.check = check_multiflow(net_, r);
+  r.status = r.check.ok ? SolveStatus::kOptimal : SolveStatus::kNumericalDifficulty;
+  if (!r.check.ok) r.message = "the independent check failed: " + r.check.worst;
+  return r;
+}
+
+}  // namespace
+
+MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) {
+  if (net.demands.empty()) {
+    MultiflowResult r;
+    r.status = SolveStatus::kBadInput;
+    r.message = "the network has no demands";
+    return r;
+  }
+  for (const Demand& d : net.demands) {
+    if (d.origin < 0 || d.origin >= net.node_count() || d.destination < 0 || d.destination >= net.node_count() ||
+        d.origin == d.destination || !(d.weight > 0) || (d.amount && !(*d.amount >= 0))) {
+      MultiflowResult r;
+      r.status = SolveStatus::kBadInput;
+      r.message = "demand '" + d.id + "' is not valid (run validation first)";
+      return r;
+    }
+  }
+  Engine engine(net, options);
+  MultiflowResult r = engine.run();
+  if (r.status == SolveStatus::kNumericalDifficulty) {
+    // Say what makes this network hard, and what to do about it: the LP solver's tolerances
+    // are absolute (1e-7), so a network whose capacities span many orders of magnitude can
+    // be out of its reach where each part alone is not.
+    const auto [smallest, largest] = net.positive_capacities();
+    if (largest > 0 && largest / smallest > 1e7)
+      r.message += "; the capacities span " + std::to_string(static_cast<int>(std::floor(std::log10(largest / smallest)))) +
+                   " orders of magnitude (" + format_number(smallest) + " to " + format_number(largest) +
+                   "), more than the LP solver's tolerances resolve in one network: arcs far below the "
+                   "others can be left out, or the parts solved as separate networks";
+  }
+  return r;
+}
+
+}  // namespace apportion

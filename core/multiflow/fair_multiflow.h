@@ -1,0 +1,36 @@
+// The fair-multiflow engine: every objective of multiflow.h on the path formulation of
+// path_master.h, exactly (to the LP tolerances) and with an independent check.
+//
+// Weighted max-min fairness is computed by progressive filling with LPs (D. Bertsekas,
+// R. Gallager, "Data Networks", 2nd ed., 1992, section 6.5.2, for fixed routes; for routing
+// as part of the problem: D. Nace, M. Pioro, IEEE Comm. Surveys & Tutorials 10(4), 2008;
+// E. Danna, S. Mandal, A. Singh, IEEE INFOCOM 2012). Each round:
+//   1. maximise t subject to f_k >= w_k t for the unfrozen demands, frozen shares fixed,
+//      f_k <= a_k, capacities (column generation);
+//   2. freeze the demands whose amount caps t (a_k / w_k = t*), and those whose constraint
+//      f_k >= w_k t has a positive dual: complementary slackness makes it tight in every
+//      optimal solution, so they cannot grow at level t*;
+//   3. settle the rest exactly: with t fixed at t*, maximise the sum of their shares. Any
+//      demand above w_k t* in that optimum can grow: it stays unfrozen. If none is above,
+//      none can grow (a solution raising one of them would raise the sum), and all freeze.
+//      Repeat with the ones not yet decided. One LP decides many demands at once, where the
+//      textbook method runs one LP per demand.
+// Every LP restarts from the previous basis. A round freezes at least one demand, so there
+// are at most K rounds.
+#pragma once
+
+#include "apportion/model/network.h"
+#include "apportion/multiflow/multiflow.h"
+
+namespace apportion {
+
+// Solves `options.objective` on a validated network (see validate()); kBadInput when it has
+// no demands or errors. The result carries the independent checker's verdict.
+MultiflowResult solve_multiflow(const Network& net, const FairOptions& options);
+
+// The independent checker for a multiflow result: paths are real walks from origin to
+// destination, shares equal the flow leaving each origin, per-demand conservation holds at
+// every node, and the arcs' total loads respect the capacities.
+MultiflowCheck check_multiflow(const Network& net, const MultiflowResult& result);
+
+}  // namespace apportion

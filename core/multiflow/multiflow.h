@@ -1,0 +1,145 @@
+// Fair multicommodity flow: the problems Apportion solves for many demands sharing one
+// network, and the result it reports. Definitions (also in README.md):
+//
+//   Demand k: origin o_k, destination d_k, amount a_k (or "as much as possible": a_k = inf)
+//   and weight w_k > 0. Its share f_k is the flow it receives, routed splittably over paths
+//   from o_k to d_k. For every arc e: the flow of all demands on e, in both directions for a
+//   shared two-way arc, is at most capacity(e). Disabled arcs carry nothing.
+//
+//   Weighted max-min fairness (lexicographic): raise f_k = w_k t for all demands together; a
+//   demand freezes when it reaches its amount, or when it cannot grow without lowering a
+//   demand whose normalised share f_j / w_j is already at or below its own; repeat with the
+//   others. The result is the unique allocation whose sorted vector of normalised shares is
+//   lexicographically largest. Each freezing round is a tier.
+//
+// Objectives:
+//   kFeasibility     can every demand with an amount get it in full? (max concurrent flow
+//                    lambda >= 1); if not, by how much, with a dual-length certificate
+//   kMaxThroughput   maximise sum_k f_k with f_k <= a_k
+//   kMaxConcurrent   maximise lambda with f_k >= lambda a_k for every demand with an amount
+//   kMaxMinFair      weighted lexicographic max-min fairness, exact
+//   kTradeoff        maximise sum_k f_k subject to f_k >= (1 - epsilon) * (max-min share of k)
+#pragma once
+
+#include <functional>
+#include <string>
+#include <vector>
+
+#include "apportion/flow/flow_checker.h"
+#include "apportion/model/status.h"
+
+namespace apportion {
+
+enum class FairObjective { kFeasibility, kMaxThroughput, kMaxConcurrent, kMaxMinFair, kTradeoff };
+const char* objective_name(FairObjective o);
+// The objective with this name (objective_name's inverse); false when there is none.
+bool objective_from_name(const std::string& name, FairObjective& out);
+
+struct RoutingOptions {
+  int hop_limit = 0;  // > 0: paths of at most this many arcs
+  int k_paths = 0;    // > 0: only the k shortest paths of each demand (by route length)
+};
+
+// Reported after every LP of a solve, so that a caller can show progress (the browser app
+// runs the engine in a worker and forwards these).
+struct SolveProgress {
+  const char* stage = "";   // "max-min fair", "max throughput", ...
+  int round = 0;            // max-min: the tier being raised
+  int demands_settled = 0;  // max-min: demands frozen so far
+  int demands = 0;
+  int lp_solves = 0;
+};
+
+struct FairOptions {
+  FairObjective objective = FairObjective::kMaxMinFair;
+  RoutingOptions routing;
+  double epsilon = 0.1;     // kTradeoff: each demand keeps at least (1 - epsilon) of its fair share
+  bool compare_throughput = true;  // kMaxMinFair: also solve max throughput for the price of fairness
+  bool hot_start = true;    // false only to measure what restarting from the last basis saves
+  std::function<void(const SolveProgress&)> on_progress;  // optional
+};
+
+struct PathShare {
+  std::vector<int> nodes;
+  std::vector<int> arcs;
+  double amount = 0.0;
+};
+
+struct DemandShare {
+  double share = 0.0;
+  double percent_of_amount = -1.0;  // -1 when the demand asks for "as much as possible"
+  double normalised = 0.0;          // share / weight
+  int tier = 0;                     // kMaxMinFair: the round it froze in (1 = first)
+  bool limited_by_amount = false;   // froze because it got its full amount
+  std::vector<int> binding_arcs;    // arcs with a positive dual in its tier that bind it
+  std::vector<int> cut_source_side; // nodes on the origin side of the cut those arcs form
+  bool binding_arcs_form_cut = false;  // removing them separates origin from destination
+  std::vector<PathShare> paths;
+};
+
+struct ArcLoad {
+  double load = 0.0;                // both directions together
+  double utilisation = 0.0;         // load / capacity (0 for zero capacity)
+  std::vector<std::pair<int, double>> per_demand;  // (demand, flow), signed on two-way arcs
+  double shadow_price = 0.0;        // dual of its capacity in the first tier it binds, else 0
+  int tier = 0;                     // first tier in which it binds (0: never)
+};
+
+struct Tier {
+  int index = 0;
+  double level = 0.0;               // the normalised share t of its demands
+  std::vector<int> demands;
+  // Capacity rows with a positive dual in this round: in the LP raising the level, and in
+  // the last saturation test, which shows what stops the demands settled by testing.
+  std::vector<int> binding_arcs;
+  std::vector<double> binding_prices;  // their duals: gain in the round's objective per unit of capacity
+};
+
+// Violations are relative to what they concern: an arc's excess to its capacity, a demand's
+// errors to its share, each at least the network's smallest positive capacity.
+struct MultiflowCheck {
+  bool ok = false;
+  double max_capacity_violation = 0.0;      // (load - capacity) / capacity
+  double max_conservation_violation = 0.0;  // per demand, at every node, / share
+  double max_share_error = 0.0;             // |reported share - flow leaving its origin| / share
+  std::string worst;
+};
+
+struct MultiflowStats {
+  int lp_solves = 0;
+  long long simplex_iterations = 0;
+  int pricing_rounds = 0;
+  int path_columns = 0;
+  int saturation_tests = 0;  // LPs run to settle zero-dual demands
+};
+
+struct MultiflowResult {
+  SolveStatus status = SolveStatus::kNotSolved;
+  std::string message;
+  FairObjective objective = FairObjective::kMaxMinFair;
+  std::vector<DemandShare> demands;
+  std::vector<ArcLoad> arcs;
+  std::vector<Tier> tiers;  // kMaxMinFair and kTradeoff (the tiers of the underlying max-min)
+
+  double throughput = 0.0;
+  double min_normalised_share = 0.0;
+  double jain_index = 0.0;           // over normalised shares (Jain, Chiu, Hawe 1984)
+  double max_throughput = -1.0;      // when solved alongside (-1: not solved)
+  double price_of_fairness = -1.0;   // (max_throughput - throughput) / max_throughput
+
+  // kMaxConcurrent and kFeasibility
+  double lambda = -1.0;
+  // kFeasibility
+  bool all_demands_met = false;
+  double shortfall = 0.0;            // sum of amounts minus the most that can be delivered
+  std::vector<double> dual_lengths;  // per arc: a certificate when lambda < 1
+  double certificate_capacity = 0.0; // sum_e capacity(e) * length(e)
+  double certificate_demand = 0.0;   // sum_k a_k * dist_length(o_k, d_k); ratio = lambda
+  std::vector<int> overloaded_cut_source_side;  // nodes; empty when no overloaded cut was found
+  double overloaded_cut_capacity = 0.0, overloaded_cut_demand = 0.0;
+
+  MultiflowCheck check;
+  MultiflowStats stats;
+};
+
+}  // namespace apportion

@@ -1,0 +1,139 @@
+// Restricted master LP and column generation; see path_master.h.
+#include "apportion/multiflow/path_master.h"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+#include "apportion/multiflow/k_shortest_paths.h"
+
+namespace apportion {
+
+namespace {
+std::vector<char> usable_arcs(const FlowGraph& g) {
+  std::vector<char> u(g.arc_count());
+  for (int a = 0; a < g.arc_count(); ++a) u[a] = g.capacity(a) > 0 && g.tail(a) != g.head(a);
+  return u;
+}
+constexpr int kMaxPricingRounds = 100000;
+}  // namespace
+
+PathMaster::PathMaster(const FlowGraph& g, const std::vector<DemandSpec>& demands, const RoutingOptions& routing,
+                       const std::vector<double>& route_length)
+    : g_(g),
+      demands_(demands),
+      routing_(routing),
+      route_length_(route_length),
+      pricer_(g, usable_arcs(g), routing.k_paths > 0 ? 0 : routing.hop_limit) {
+  const int K = static_cast<int>(demands_.size());
+  cap_row_.assign(g.arc_count(), -1);
+  const std::vector<char> usable = usable_arcs(g);
+  for (int a = 0; a < g.arc_count(); ++a)
+    if (usable[a]) cap_row_[a] = lp_.add_row(-LpSolver::kInf, g.capacity(a));
+  level_col_ = lp_.add_column(0.0, 0.0, LpSolver::kInf);
+  demands_by_origin_.assign(g.node_count(), {});
+  reachable_.assign(K, 0);
+  for (int k = 0; k < K; ++k) {
+    const DemandSpec& d = demands_[k];
+    share_col_.push_back(lp_.add_column(0.0, 0.0, d.amount));
+    flow_row_.push_back(lp_.add_row(0.0, 0.0, {share_col_[k]}, {-1.0}));
+    level_row_.push_back(lp_.add_row(-LpSolver::kInf, LpSolver::kInf, {share_col_[k], level_col_}, {1.0, -d.weight}));
+    demands_by_origin_[d.origin].push_back(k);
+  }
+  // Starting columns: the k shortest paths (fixed set), or one fewest-arcs path.
+  for (int k = 0; k < K; ++k) {
+    const DemandSpec& d = demands_[k];
+    if (routing_.k_paths > 0) {
+      std::vector<LanePath> ps = k_shortest_paths(g.node_count(), pricer_.lanes(), route_length_, d.origin,
+                                                  d.destination, routing_.k_paths);
+      for (LanePath& p : ps)
+        if (routing_.hop_limit <= 0 || static_cast<int>(p.lanes.size()) <= routing_.hop_limit)
+          reachable_[k] |= add_path(k, std::move(p.lanes));
+    } else {
+      LanePath p;
+      if (pricer_.shortest_hop_path(d.origin, d.destination, p) &&
+          (routing_.hop_limit <= 0 || static_cast<int>(p.lanes.size()) <= routing_.hop_limit)) {
+        reachable_[k] = add_path(k, std::move(p.lanes));
+      }
+    }
+    if (!reachable_[k]) lp_.set_column_bounds(share_col_[k], 0.0, 0.0);
+  }
+}
+
+bool PathMaster::add_path(int demand, std::vector<int> lanes) {
+  if (lanes.empty()) return false;
+  std::string key = std::to_string(demand);
+  for (int l : lanes) key += ',' + std::to_string(l);
+  if (!known_.insert(key).second) return false;
+  // One coefficient per capacity row (both lanes of a two-way arc share the row).
+  std::map<int, double> coef;
+  double length = 0.0;
+  for (int l : lanes) {
+    const int arc = pricer_.lanes()[l].arc;
+    coef[cap_row_[arc]] += 1.0;
+    length += route_length_[arc];
+  }
+  std::vector<int> rows{flow_row_[demand]};
+  std::vector<double> values{1.0};
+  for (auto [r, v] : coef) rows.push_back(r), values.push_back(v);
+  MasterPath p{demand, std::move(lanes), -1};
+  p.column = lp_.add_column(route_costs_ ? length : 0.0, 0.0, LpSolver::kInf, rows, values);
+  paths_.push_back(std::move(p));
+  ++stats_.path_columns;
+  return true;
+}
+
+void PathMaster::set_route_costs(bool on) {
+  if (on == route_costs_) return;
+  route_costs_ = on;
+  for (const MasterPath& p : paths_) {
+    double length = 0.0;
+    for (int l : p.lanes) length += route_length_[pricer_.lanes()[l].arc];
+    lp_.set_cost(p.column, on ? length : 0.0);
+  }
+}
+
+int PathMaster::price() {
+  double scale = 1.0;
+  std::vector<double> length(g_.arc_count(), 0.0);
+  for (int a = 0; a < g_.arc_count(); ++a) {
+    if (cap_row_[a] < 0) continue;
+    // Capacity rows are "<=": their duals are <= 0 at a minimum; rounding may leave +0.
+    length[a] = std::max(0.0, -lp_.row_dual(cap_row_[a]));
+    scale = std::max(scale, length[a]);
+    if (route_costs_) length[a] += route_length_[a];
+  }
+  for (int k = 0; k < static_cast<int>(demands_.size()); ++k) scale = std::max(scale, std::abs(lp_.row_dual(flow_row_[k])));
+  const double tol = 1e-9 * scale;
+  int added = 0;
+  for (int o = 0; o < g_.node_count(); ++o) {
+    if (demands_by_origin_[o].empty()) continue;
+    bool searched = false;
+    for (int k : demands_by_origin_[o]) {
+      if (!reachable_[k]) continue;
+      if (!searched) pricer_.search(o, length), searched = true;
+      const double dist = pricer_.distance(demands_[k].destination);
+      if (dist < lp_.row_dual(flow_row_[k]) - tol)
+        added += add_path(k, pricer_.path_to(demands_[k].destination).lanes) ? 1 : 0;
+    }
+  }
+  return added;
+}
+
+LpStatus PathMaster::solve() {
+  for (int round = 0; round < kMaxPricingRounds; ++round) {
+    // Round 0 follows changed bounds or costs: dual simplex. Later rounds follow new path
+    // columns only: primal simplex (see LpSolver::set_method).
+    lp_.set_method(round == 0 ? LpSolver::Method::kDual : LpSolver::Method::kPrimal);
+    const LpStatus s = lp_.solve();
+    ++stats_.lp_solves;
+    stats_.simplex_iterations = lp_.total_iterations();
+    if (s != LpStatus::kOptimal) return s;
+    if (routing_.k_paths > 0) return s;
+    ++stats_.pricing_rounds;
+    if (price() == 0) return s;
+  }
+  return LpStatus::kFailed;
+}
+
+}  // namespace apportion

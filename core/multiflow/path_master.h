@@ -1,0 +1,83 @@
+// The restricted master LP of the path formulation, solved by column generation.
+//
+// Model (minimisation, as LpSolver states it):
+//   columns  x_p >= 0 for each path p of demand k(p) (cost: its route length when routing
+//            is being tidied, else 0); f_k, the share of demand k; t, a level used by the
+//            fairness and concurrency objectives
+//   rows     capacity(e):  sum of x_p over paths using arc e (either lane)   <= u(e)
+//            flow(k):      sum of x_p over paths of k  -  f_k                  = 0
+//            level(k):     f_k  -  g_k t                                      >= 0 when active
+// Pricing (Dantzig-Wolfe column generation; Ahuja, Magnanti, Orlin, "Network Flows", 1993,
+// ch. 17): a new path p for demand k improves the LP exactly when its length under
+//   len(e) = -dual(capacity(e)) (+ route length of e when tidying)
+// is below dual(flow(k)). One shortest-path tree per origin prices all its demands. When no
+// path prices out, the restricted LP is optimal for the full path formulation.
+// With RoutingOptions::k_paths the column set is fixed in advance and nothing is priced.
+#pragma once
+
+#include <unordered_set>
+#include <vector>
+
+#include "apportion/flow/flow_graph.h"
+#include "apportion/multiflow/lp_solver.h"
+#include "apportion/multiflow/multiflow.h"
+#include "apportion/multiflow/path_pricing.h"
+
+namespace apportion {
+
+struct DemandSpec {
+  int origin = -1, destination = -1;
+  double amount = LpSolver::kInf;  // inf: as much as possible
+  double weight = 1.0;
+};
+
+struct MasterPath {
+  int demand = -1;
+  std::vector<int> lanes;  // into PathMaster::lanes()
+  int column = -1;
+};
+
+class PathMaster {
+ public:
+  // `route_length` per arc: the metric of k-shortest paths and of route tidying.
+  PathMaster(const FlowGraph& g, const std::vector<DemandSpec>& demands, const RoutingOptions& routing,
+             const std::vector<double>& route_length);
+
+  LpSolver& lp() { return lp_; }
+  int share_column(int k) const { return share_col_[k]; }
+  int level_column() const { return level_col_; }
+  int level_row(int k) const { return level_row_[k]; }
+  int capacity_row(int arc) const { return cap_row_[arc]; }  // -1 for an unusable arc
+  bool reachable(int k) const { return reachable_[k]; }      // some path exists (within limits)
+
+  // Path columns cost their route length (true) or nothing (false).
+  void set_route_costs(bool on);
+
+  // Column generation until no path prices out. kFailed after too many rounds.
+  LpStatus solve();
+
+  const std::vector<Lane>& lanes() const { return pricer_.lanes(); }
+  const std::vector<MasterPath>& paths() const { return paths_; }
+  const MultiflowStats& stats() const { return stats_; }
+
+ private:
+  bool add_path(int demand, std::vector<int> lanes);
+  int price();  // adds improving paths, returns how many
+
+  const FlowGraph& g_;
+  std::vector<DemandSpec> demands_;
+  RoutingOptions routing_;
+  std::vector<double> route_length_;
+  PathPricer pricer_;
+  LpSolver lp_;
+  std::vector<int> share_col_, level_row_, flow_row_, cap_row_;
+  std::vector<char> reachable_;
+  int level_col_ = -1;
+  bool route_costs_ = false;
+  std::vector<MasterPath> paths_;
+  std::unordered_set<std::string> known_;  // demand and lanes of every path, to refuse repeats
+  std::vector<std::vector<int>> demands_by_origin_;
+  MultiflowStats stats_;
+};
+
+}  // namespace apportion

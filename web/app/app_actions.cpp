@@ -1,0 +1,325 @@
+// What the page does to its document and result: edits with undo, solves in the worker,
+// opening and exporting. Buttons, keys and the test hook all come here; see app_state.h.
+#include <emscripten.h>
+
+#include <algorithm>
+#include <cctype>
+#include <cstdio>
+#include <cstdlib>
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "app/app_state.h"
+#include "apportion/formats/network_json.h"
+#include "apportion/layout/network_layout.h"
+#include "apportion/model/number_text.h"
+#include "apportion/model/validation.h"
+#include "apportion/multiflow/fair_multiflow.h"
+#include "apportion/results/multiflow_result_export.h"
+#include "apportion/results/multiflow_result_import.h"
+#include "apportion/results/network_svg.h"
+#include "browser/browser_bridge.h"
+
+namespace apportion::web {
+
+App& app() {
+  static App instance;
+  return instance;
+}
+
+bool result_is_current() { return app().result_revision == app().revision && app().result.status != SolveStatus::kNotSolved; }
+
+const MultiflowResult* current_result() {
+  return result_is_current() && app().result.status == SolveStatus::kOptimal ? &app().result : nullptr;
+}
+
+namespace {
+
+std::string state_json(const char* event) {
+  App& a = app();
+  nlohmann::json s = {{"event", event}, {"network", a.doc.name}, {"source", a.doc_name},
+                      {"objective", objective_name(kObjectives[a.objective])},
+                      {"status", result_is_current() ? status_name(a.result.status) : "not solved"},
+                      {"messages", a.open_errors}, {"notice", a.notice}, {"revision", a.revision},
+                      {"solving", a.solve.running}, {"nodes", a.doc.node_count()}, {"arcs", a.doc.arc_count()},
+                      {"demands", a.doc.demands.size()}, {"undo", a.history.undo_name()},
+                      {"redo", a.history.redo_name()}, {"other_tab_saved", a.other_tab_saved}};
+  nlohmann::json shares = nlohmann::json::array();
+  if (result_is_current())
+    for (const auto& d : a.result.demands) shares.push_back(d.share);
+  s["shares"] = shares;
+  s["dpr"] = a.dpr;
+  nlohmann::json errors = nlohmann::json::array();
+  for (const Diagnostic& d : a.diagnostics.items)
+    if (d.severity == Severity::kError) errors.push_back(d.to_string());
+  s["errors"] = errors;
+  nlohmann::json sel = {{"nodes", nlohmann::json::array()}, {"arcs", nlohmann::json::array()},
+                        {"demands", nlohmann::json::array()}};
+  for (int v : a.selection.nodes) sel["nodes"].push_back(a.doc.nodes[v].id);
+  for (int e : a.selection.arcs) sel["arcs"].push_back(a.doc.arcs[e].id);
+  for (int k : a.selection.demands) sel["demands"].push_back(a.doc.demands[k].id);
+  s["selection"] = sel;
+  return s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
+}
+
+std::string file_stem() {
+  std::string s = app().doc.name.empty() ? "network" : app().doc.name;
+  for (char& c : s)
+    if (!std::isalnum(static_cast<unsigned char>(c))) c = '-';
+  return s;
+}
+
+// Keeps the selection inside the document after items were removed or undone.
+void clamp_selection() {
+  Selection& s = app().selection;
+  auto keep = [](std::vector<int>& v, int n) {
+    v.erase(std::remove_if(v.begin(), v.end(), [n](int i) { return i < 0 || i >= n; }), v.end());
+  };
+  keep(s.nodes, app().doc.node_count());
+  keep(s.arcs, app().doc.arc_count());
+  keep(s.demands, static_cast<int>(app().doc.demands.size()));
+  if (app().view.filter_demand >= static_cast<int>(app().doc.demands.size())) app().view.filter_demand = -1;
+  if (app().view.pending_from >= app().doc.node_count()) app().view.pending_from = -1;
+}
+
+}  // namespace
+
+void report(const char* event) { std::printf("apportion:%s %s\n", event, state_json(event).c_str()); }
+
+void after_edit(bool affects_solve) {
+  App& a = app();
+  clamp_selection();
+  autosave(write_network_json(a.doc));
+  if (!affects_solve) return;
+  ++a.revision;
+  a.diagnostics = validate(a.doc);
+  if (a.auto_solve) request_solve();
+  else if (a.solve.running) cancel_solve();
+  report("edited");
+}
+
+void set_document(Network net, const std::string& name, bool save) {
+  App& a = app();
+  // Networks imported without positions get a drawing before anything else sees them.
+  bool placed = true;
+  for (const Node& v : net.nodes) placed = placed && v.x && v.y;
+  if (!placed) auto_layout(net);
+  a.doc = std::move(net);
+  a.doc_name = name;
+  a.open_errors.clear();
+  a.history.clear();
+  a.selection = Selection{};
+  a.view = ViewState{};
+  a.search[0] = 0;
+  a.search_hits.clear();
+  ++a.revision;
+  a.diagnostics = validate(a.doc);
+  if (save) autosave(write_network_json(a.doc));
+  request_solve();
+}
+
+void request_solve() {
+  App& a = app();
+  if (a.solve.running) cancel_solve();
+  if (a.diagnostics.has_errors()) {
+    a.notice = "Not solved: the network has errors (listed above the canvas; click one to select its item).";
+    report("invalid");
+    return;
+  }
+  a.options.objective = kObjectives[a.objective];
+  RunningSolve& s = a.solve;
+  const int id = s.id + 1;
+  s = RunningSolve{};
+  s.running = true, s.id = id, s.started_ms = emscripten_get_now(), s.revision = a.revision, s.doc = a.doc;
+  nlohmann::json request = {{"network", write_network_json(a.doc)}, {"objective", objective_name(a.options.objective)},
+                            {"epsilon", a.options.epsilon}, {"hop_limit", a.options.routing.hop_limit},
+                            {"k_paths", a.options.routing.k_paths}};
+  a.notice.clear();
+  start_solve(s.id, request.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace));
+  report("solve-started");
+}
+
+void cancel_solve() {
+  App& a = app();
+  if (!a.solve.running) return;
+  stop_solver();
+  a.solve.running = false;
+  a.notice = "Solve cancelled; the document is unchanged.";
+  report("cancelled");
+}
+
+void receive_solve_progress(int id, const std::string& json_text) {
+  App& a = app();
+  if (id != a.solve.id || !a.solve.running) return;
+  const nlohmann::json p = nlohmann::json::parse(json_text, nullptr, false);
+  if (!p.is_object()) return;
+  auto number = [&](const char* key) { return p.contains(key) && p[key].is_number() ? p[key].get<int>() : 0; };
+  a.solve.stage = p.contains("stage") && p["stage"].is_string() ? p["stage"].get<std::string>() : "";
+  a.solve.round = number("round");
+  a.solve.settled = number("settled");
+  a.solve.demands = number("demands");
+  a.solve.lp_solves = number("lp_solves");
+  report("progress");
+}
+
+void receive_solve_result(int id, const std::string& text) {
+  App& a = app();
+  if (id != a.solve.id || !a.solve.running) return;
+  a.solve.running = false;
+  std::string error;
+  auto read = read_multiflow_json(a.solve.doc, text, error);
+  MultiflowResult r;
+  if (!read) {
+    r.status = SolveStatus::kNumericalDifficulty;
+    r.message = "the solver's answer could not be read (" + error + ")";
+  } else {
+    r = std::move(*read);
+    if (r.status == SolveStatus::kOptimal) {
+      // The page checks the worker's answer itself with the independent checker.
+      r.check = check_multiflow(a.solve.doc, r);
+      if (!r.check.ok) r.status = SolveStatus::kNumericalDifficulty, r.message = "the check failed: " + r.check.worst;
+    }
+  }
+  a.previous_shares.clear();
+  if (a.result.status == SolveStatus::kOptimal && r.status == SolveStatus::kOptimal) {
+    for (std::size_t k = 0; k < a.result.demands.size() && k < a.result_doc_ids.size(); ++k)
+      a.previous_shares[a.result_doc_ids[k]] = a.result.demands[k].share;
+  }
+  a.result = std::move(r);
+  a.result_revision = a.solve.revision;
+  a.result_doc_ids.clear();
+  for (const Demand& d : a.solve.doc.demands) a.result_doc_ids.push_back(d.id);
+  a.result_edit = a.history.undo_name();
+  a.solve.doc = Network{};
+  report("solved");
+}
+
+void receive_solve_failure(int id, const std::string& message) {
+  App& a = app();
+  if (id != a.solve.id || !a.solve.running) return;
+  a.solve.running = false;
+  a.result = MultiflowResult{};
+  a.result.status = SolveStatus::kNumericalDifficulty;
+  a.result.message = "the solver stopped: " + message;
+  a.result_revision = a.solve.revision;
+  report("solved");
+}
+
+void undo() {
+  if (!app().history.undo(app().doc)) return;
+  after_edit(true);
+}
+
+void redo() {
+  if (!app().history.redo(app().doc)) return;
+  after_edit(true);
+}
+
+void delete_selection() {
+  Selection sel = app().selection;
+  if (sel.empty()) return;
+  const std::size_t n = sel.nodes.size() + sel.arcs.size() + sel.demands.size();
+  edit("delete " + std::to_string(n) + (n == 1 ? " item" : " items"), true,
+       [&](Network& doc) { remove_items(doc, sel); });
+  app().selection = Selection{};
+}
+
+void select_item(const std::string& kind, const std::string& id) {
+  App& a = app();
+  Selection s;
+  int i = -1;
+  if (kind == "node" && (i = a.doc.find_node(id)) >= 0) s.nodes.push_back(i);
+  if (kind == "arc" && (i = a.doc.find_arc(id)) >= 0) s.arcs.push_back(i);
+  if (kind == "demand" && (i = a.doc.find_demand(id)) >= 0) s.demands.push_back(i);
+  if (i < 0 && !id.empty() && id[0] == '#') {  // an item without a usable id: "#3" is the third
+    i = std::atoi(id.c_str() + 1) - 1;
+    if (kind == "node" && i >= 0 && i < a.doc.node_count()) s.nodes.push_back(i);
+    if (kind == "arc" && i >= 0 && i < a.doc.arc_count()) s.arcs.push_back(i);
+    if (kind == "demand" && i >= 0 && i < static_cast<int>(a.doc.demands.size())) s.demands.push_back(i);
+  }
+  if (s.empty()) return;
+  a.selection = s;
+  a.right_tab = 1;  // the inspector
+  report("selected");
+}
+
+// "KIND ID FIELD VALUE": one field edit, as the inspector makes it (used by the test hook).
+void set_field(const std::string& spec) {
+  App& a = app();
+  std::istringstream in(spec);
+  std::string kind, id, field, value;
+  in >> kind >> id >> field;
+  std::getline(in >> std::ws, value);
+  const std::optional<double> number = parse_number(value);
+  const std::string what = field + " of " + kind + " " + id;
+  if (kind == "arc" && a.doc.find_arc(id) >= 0) {
+    const int e = a.doc.find_arc(id);
+    if (field == "capacity" && number) edit(what, true, [&](Network& d) { d.arcs[e].capacity = *number; });
+    if (field == "enabled") edit(what, true, [&](Network& d) { d.arcs[e].enabled = value == "true"; });
+  } else if (kind == "demand" && a.doc.find_demand(id) >= 0) {
+    const int k = a.doc.find_demand(id);
+    if (field == "weight" && number) edit(what, true, [&](Network& d) { d.demands[k].weight = *number; });
+    if (field == "amount" && number) edit(what, true, [&](Network& d) { d.demands[k].amount = *number; });
+  } else if (kind == "node" && a.doc.find_node(id) >= 0) {
+    const int v = a.doc.find_node(id);
+    if (field == "label") edit(what, false, [&](Network& d) { d.nodes[v].label = value; });
+  }
+}
+
+// Every button's action, by name: the UI and the test hook share this code.
+void action(const std::string& what) {
+  App& a = app();
+  const MultiflowResult* r = current_result();
+  if (what == "open") open_file_picker();
+  else if (what == "save-network") download_text(file_stem() + ".json", "application/json", write_network_json(a.doc));
+  else if (what == "share-link") publish_share_link(write_network_json(a.doc));
+  else if (what == "solve") request_solve();
+  else if (what == "cancel") cancel_solve();
+  else if (what == "undo") undo();
+  else if (what == "redo") redo();
+  else if (what == "delete") delete_selection();
+  else if (what == "arrange") {
+    edit("arrange the nodes", false, [](Network& doc) {
+      LayoutOptions o;
+      o.keep_placed = false;
+      auto_layout(doc, o);
+    });
+    a.view.fitted = false;
+  } else if (what == "fit") a.view.fitted = false;
+  else if (what == "export-demands-csv" && r)
+    download_text(file_stem() + ".demands.csv", "text/csv", multiflow_demands_csv(a.doc, *r));
+  else if (what == "export-arcs-csv" && r)
+    download_text(file_stem() + ".arcs.csv", "text/csv", multiflow_arcs_csv(a.doc, *r));
+  else if (what == "export-paths-csv" && r)
+    download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(a.doc, *r));
+  else if (what == "export-svg") download_text(file_stem() + ".svg", "image/svg+xml", network_svg(a.doc, r));
+  else if (what == "export-png") a.png_requested = true;
+  else if (what == "export-result-json" && r)
+    download_text(file_stem() + ".result.json", "application/json", multiflow_json(a.doc, *r));
+  else if (what.rfind("objective ", 0) == 0) {
+    const int i = std::atoi(what.c_str() + 10);
+    if (i >= 0 && i < static_cast<int>(std::size(kObjectives))) a.objective = i, request_solve();
+  } else if (what == "take-out-selected" || what == "restore-selected") {
+    const std::vector<int> arcs = a.selection.arcs;
+    const bool on = what == "restore-selected";
+    if (arcs.empty()) return;
+    const std::string n = std::to_string(arcs.size()) + (arcs.size() == 1 ? " arc" : " arcs");
+    edit((on ? "restore " : "take out ") + n, true, [&](Network& d) {
+      for (int e : arcs) d.arcs[e].enabled = on;
+    });
+  } else if (what.rfind("tool ", 0) == 0) {
+    const std::string t = what.substr(5);
+    a.tool = t == "add-node" ? Tool::kAddNode : t == "add-arc" ? Tool::kAddArc : t == "add-demand" ? Tool::kAddDemand
+                                                                                                    : Tool::kSelect;
+    a.view.pending_from = -1;
+  } else if (what.rfind("select-diagnostic ", 0) == 0) {
+    const std::size_t i = std::strtoul(what.c_str() + 18, nullptr, 10);
+    if (i < a.diagnostics.items.size()) select_item(a.diagnostics.items[i].item_kind, a.diagnostics.items[i].item_id);
+  } else if (what.rfind("set ", 0) == 0) {
+    set_field(what.substr(4));
+  } else if (what == "state") {
+    report("state");
+  }
+}
+
+}  // namespace apportion::web

@@ -1,0 +1,108 @@
+// The page's state: one network document with its undo history, the result of the last
+// solve and what the user is looking at. The document and the result are the single source
+// of truth; every frame is drawn from them. Edits go through edit(), which records undo,
+// validates, autosaves and (with auto-solve on) starts a solve in the worker.
+#pragma once
+
+#include <GLFW/glfw3.h>
+
+#include <string>
+#include <unordered_map>
+#include <vector>
+
+#include "app/document_history.h"
+#include "apportion/model/diagnostics.h"
+#include "apportion/model/network.h"
+#include "apportion/model/network_edit.h"
+#include "apportion/multiflow/multiflow.h"
+#include "canvas/network_view.h"
+
+namespace apportion::web {
+
+// A solve running in the worker.
+struct RunningSolve {
+  bool running = false;
+  int id = 0;                 // of the newest request; answers to older ones are ignored
+  double started_ms = 0;
+  long long revision = -1;    // the document revision it solves
+  Network doc;                // the document as sent, to read the answer against
+  std::string stage;
+  int round = 0, settled = 0, demands = 0, lp_solves = 0;
+};
+
+struct App {
+  GLFWwindow* window = nullptr;
+  Network doc;
+  std::string doc_name;        // where it came from
+  long long revision = 0;      // bumps on every edit that changes what a solve sees
+  DocumentHistory history;
+  Selection selection;
+  Diagnostics diagnostics;     // validation of the document, refreshed on every edit
+
+  FairOptions options;
+  int objective = 0;           // index into kObjectives
+  bool auto_solve = true;
+  MultiflowResult result;
+  long long result_revision = -1;
+  // Shares of the result before this one, by demand id: what the last edit changed.
+  std::unordered_map<std::string, double> previous_shares;
+  std::vector<std::string> result_doc_ids;  // demand ids of the document the result solves
+  std::string result_edit;                   // the last edit before that solve (the undo name)
+  RunningSolve solve;
+
+  std::vector<std::string> open_errors;  // from the last failed open, shown until dismissed
+  std::string notice;                    // one line about the last event (cancelled, autosave trouble, ...)
+  bool other_tab_saved = false;          // another tab autosaved over this one's work
+
+  ViewState view;
+  Tool tool = Tool::kSelect;
+  char search[128] = "";
+  std::vector<char> search_hits;         // per node
+  int right_tab = 0;
+  bool png_requested = false;
+  float dpr = 1.0f;
+  bool first_frame_reported = false;
+};
+
+App& app();
+
+inline constexpr FairObjective kObjectives[] = {FairObjective::kMaxMinFair, FairObjective::kMaxConcurrent,
+                                                FairObjective::kMaxThroughput, FairObjective::kTradeoff,
+                                                FairObjective::kFeasibility};
+inline constexpr const char* kObjectiveLabels[] = {"Max-min fair shares (weighted)", "Max concurrent flow",
+                                                   "Max throughput", "Throughput with a fairness floor",
+                                                   "Can every demand be met?"};
+
+// True when the result belongs to the document as it is now.
+bool result_is_current();
+// The result to draw: the current one, or null.
+const MultiflowResult* current_result();
+
+// Records undo under `what`, lets `change` edit the document, then validates, autosaves
+// and re-solves when `affects_solve` (moving nodes does not).
+template <class Change>
+void edit(const std::string& what, bool affects_solve, Change&& change);
+void after_edit(bool affects_solve);
+
+void set_document(Network net, const std::string& name, bool save);
+void request_solve();
+void cancel_solve();
+// Answers from the worker (through the exported functions in main.cpp).
+void receive_solve_progress(int id, const std::string& json_text);
+void receive_solve_result(int id, const std::string& result_json);
+void receive_solve_failure(int id, const std::string& message);
+void undo();
+void redo();
+void delete_selection();
+void select_item(const std::string& kind, const std::string& id);  // from a validation message
+void report(const char* event);  // a machine-readable console line for tests
+void action(const std::string& what);
+
+template <class Change>
+void edit(const std::string& what, bool affects_solve, Change&& change) {
+  app().history.record(app().doc, what);
+  change(app().doc);
+  after_edit(affects_solve);
+}
+
+}  // namespace apportion::web

@@ -1,0 +1,300 @@
+// Apportion in the browser: Dear ImGui over Emscripten's GLFW and WebGL2. The page holds one
+// network document and its result (web/app/app_state.h); every frame is drawn from them. It
+// opens the demo network (or the network of a share link, or the autosaved one), edits it
+// with undo, solves it with the chosen rule in a worker (web/browser/solver_worker.cpp) while the
+// page keeps drawing, and exports results and the network, all inside the browser.
+//
+// HiDPI: Emscripten 3.1.6's GLFW ignores devicePixelRatio, so each frame sizes the canvas
+// backing store to CSS size x DPR itself. The UI is laid out in CSS pixels, as the mouse
+// reports them, and drawn with a framebuffer scale of DPR; fonts are rasterised at DPR x
+// their size and scaled back, so text stays sharp.
+//
+// Test hook: machine-readable console lines "apportion:<event> {json}", the exported
+// apportion_test_action(), which runs the same code as the buttons, and "state" lines with
+// the node positions in CSS pixels, so that tests can click and drag on the canvas.
+#include <GLFW/glfw3.h>
+#include <emscripten.h>
+#include <emscripten/html5.h>
+#include <imgui.h>
+#include <imgui_impl_glfw.h>
+#include <imgui_impl_opengl3.h>
+
+#include <cmath>
+#include <cstdio>
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "app/app_state.h"
+#include "apportion/formats/network_json.h"
+#include "apportion/results/flow_result_export.h"
+#include "browser/browser_bridge.h"
+#include "browser/file_payload.h"
+#include "demo_network.h"
+#include "panels/panels.h"
+
+namespace apportion::web {
+namespace {
+
+void apply_scale(float dpr) {
+  ImGuiIO& io = ImGui::GetIO();
+  io.Fonts->Clear();
+  ImFontConfig cfg;
+  cfg.SizePixels = std::round(13.0f * dpr);
+  io.Fonts->AddFontDefault(&cfg);
+  io.Fonts->Build();
+  io.FontGlobalScale = 1.0f / dpr;
+  ImGui_ImplOpenGL3_DestroyFontsTexture();
+  ImGui_ImplOpenGL3_CreateFontsTexture();
+}
+
+// What the mouse did on the canvas, turned into selection changes and edits.
+void apply_canvas_input(const CanvasInput& in) {
+  App& a = app();
+  Selection& sel = a.selection;
+  auto toggle = [](std::vector<int>& v, int i) {
+    auto it = std::find(v.begin(), v.end(), i);
+    if (it == v.end()) v.push_back(i);
+    else v.erase(it);
+  };
+  if (in.move_started) {
+    if (std::find(sel.nodes.begin(), sel.nodes.end(), in.clicked_node) == sel.nodes.end()) {
+      if (!in.additive) sel = Selection{};
+      sel.nodes.push_back(in.clicked_node);
+    }
+    const std::size_t n = sel.nodes.size();
+    a.history.record(a.doc, "move " + std::to_string(n) + (n == 1 ? " node" : " nodes"));
+  } else if (in.clicked_node >= 0) {
+    if (a.tool == Tool::kAddNode || !in.additive) sel = Selection{};
+    toggle(sel.nodes, in.clicked_node);
+  } else if (in.clicked_arc >= 0) {
+    if (!in.additive) sel = Selection{};
+    toggle(sel.arcs, in.clicked_arc);
+  } else if (in.clicked_empty) {
+    if (a.tool == Tool::kAddNode) {
+      int v = -1;
+      edit("add a node", true, [&](Network& d) { v = add_node(d, in.doc_x, in.doc_y); });
+      sel = Selection{};
+      sel.nodes.push_back(v);
+    } else if (!in.additive) {
+      sel = Selection{};
+    }
+  }
+  if (in.move_dx != 0 || in.move_dy != 0)  // live, without an undo step per frame
+    for (int v : sel.nodes) {
+      Node& node = a.doc.nodes[v];
+      node.x = node.x.value_or(0) + in.move_dx;
+      node.y = node.y.value_or(0) + in.move_dy;
+    }
+  if (in.move_ended) after_edit(false);
+  if (in.box_done) {
+    if (!in.additive) sel = Selection{};
+    for (int v : in.box.nodes)
+      if (std::find(sel.nodes.begin(), sel.nodes.end(), v) == sel.nodes.end()) sel.nodes.push_back(v);
+    for (int e : in.box.arcs)
+      if (std::find(sel.arcs.begin(), sel.arcs.end(), e) == sel.arcs.end()) sel.arcs.push_back(e);
+  }
+  if (in.link_from >= 0) {
+    int item = -1;
+    if (a.tool == Tool::kAddArc) {
+      edit("add an arc", true, [&](Network& d) { item = add_arc(d, in.link_from, in.link_to); });
+      sel = Selection{};
+      sel.arcs.push_back(item);
+    } else {
+      edit("add a demand", true, [&](Network& d) { item = add_demand(d, in.link_from, in.link_to); });
+      sel = Selection{};
+      sel.demands.push_back(item);
+    }
+    a.right_tab = 1;
+  }
+  if (in.clicked_node >= 0 || in.clicked_arc >= 0 || in.box_done || in.link_from >= 0 || in.clicked_empty) report("selected");
+}
+
+void keyboard() {
+  ImGuiIO& io = ImGui::GetIO();
+  if (io.WantTextInput) return;
+  const bool command = io.KeyCtrl || io.KeySuper;
+  if (command && ImGui::IsKeyPressed(ImGuiKey_Z, false)) io.KeyShift ? redo() : undo();
+  else if (command && ImGui::IsKeyPressed(ImGuiKey_Y, false)) redo();
+  else if (command && ImGui::IsKeyPressed(ImGuiKey_A, false)) {
+    Selection all;
+    for (int v = 0; v < app().doc.node_count(); ++v) all.nodes.push_back(v);
+    for (int e = 0; e < app().doc.arc_count(); ++e) all.arcs.push_back(e);
+    app().selection = all;
+  } else if (ImGui::IsKeyPressed(ImGuiKey_Delete, false) || ImGui::IsKeyPressed(ImGuiKey_Backspace, false))
+    delete_selection();
+  else if (ImGui::IsKeyPressed(ImGuiKey_Escape, false)) {
+    app().tool = Tool::kSelect;
+    app().view.pending_from = -1;
+    app().selection = Selection{};
+  }
+}
+
+void report_positions() {
+  App& a = app();
+  nlohmann::json nodes = nlohmann::json::object();
+  for (int v = 0; v < a.doc.node_count() && 2 * v + 1 < static_cast<int>(a.view.node_screen.size()); ++v)
+    nodes[a.doc.nodes[v].id] = {a.view.node_screen[2 * v], a.view.node_screen[2 * v + 1]};
+  nlohmann::json s = {{"nodes", nodes},
+                      {"canvas", {a.view.canvas_x, a.view.canvas_y, a.view.canvas_w, a.view.canvas_h}},
+                      {"canvas_ms", a.view.frame_ms},
+                      {"fps", ImGui::GetIO().Framerate}};
+  std::printf("apportion:positions %s\n", s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace).c_str());
+}
+
+void frame() {
+  App& a = app();
+  double css_w = 0, css_h = 0;
+  emscripten_get_element_css_size("#canvas", &css_w, &css_h);
+  const float dpr = static_cast<float>(emscripten_get_device_pixel_ratio());
+  const int w = std::max(1, static_cast<int>(css_w * dpr)), h = std::max(1, static_cast<int>(css_h * dpr));
+  emscripten_set_canvas_element_size("#canvas", w, h);
+  if (dpr != a.dpr) a.dpr = dpr, apply_scale(dpr), a.view.fitted = false;
+
+  glfwPollEvents();
+  ImGui_ImplOpenGL3_NewFrame();
+  ImGui_ImplGlfw_NewFrame();
+  ImGuiIO& io = ImGui::GetIO();
+  io.DisplaySize = ImVec2(static_cast<float>(css_w), static_cast<float>(css_h));
+  io.DisplayFramebufferScale = ImVec2(dpr, dpr);
+  ImGui::NewFrame();
+  keyboard();
+
+  ImGui::SetNextWindowPos(ImVec2(0, 0));
+  ImGui::SetNextWindowSize(io.DisplaySize);
+  ImGui::Begin("Apportion", nullptr, ImGuiWindowFlags_NoResize | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoCollapse |
+                                         ImGuiWindowFlags_NoBringToFrontOnFocus);
+  draw_toolbar();
+  ImGui::Text("%s  (%s; %d nodes, %d arcs, %d demands)", a.doc.name.c_str(), a.doc_name.c_str(), a.doc.node_count(),
+              a.doc.arc_count(), static_cast<int>(a.doc.demands.size()));
+  ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(0.95f, 0.80f, 0.45f, 1.0f));
+  ImGui::TextWrapped("%s", apportion::kPlanningCaution);
+  ImGui::PopStyleColor();
+  ImGui::Separator();
+  // Messages go in the side panel, so that the canvas never moves under the mouse.
+  ImGui::BeginChild("side", ImVec2(560.0f, 0), true);
+  draw_notices();
+  if (ImGui::BeginTabBar("side-tabs")) {
+    const int want = a.right_tab;
+    a.right_tab = -1;
+    auto tab = [&](const char* name, int index) {
+      return ImGui::BeginTabItem(name, nullptr, want == index ? ImGuiTabItemFlags_SetSelected : 0);
+    };
+    if (tab("Shares", 0)) draw_result_panel(), ImGui::EndTabItem();
+    if (tab("Selection", 1)) draw_inspector(), ImGui::EndTabItem();
+    if (tab("Demands", 2)) draw_demand_table(), ImGui::EndTabItem();
+    if (tab("Charts", 3)) draw_charts(), ImGui::EndTabItem();
+    ImGui::EndTabBar();
+  }
+  ImGui::EndChild();
+  ImGui::SameLine();
+  ImGui::BeginChild("canvas", ImVec2(0, 0), false, ImGuiWindowFlags_NoScrollbar | ImGuiWindowFlags_NoScrollWithMouse);
+  const CanvasInput in = draw_network(a.doc, current_result(), a.selection, a.search_hits, a.tool, a.view, 1.0f);
+  ImGui::EndChild();
+  ImGui::End();
+  apply_canvas_input(in);
+
+  ImGui::Render();
+  glViewport(0, 0, w, h);
+  glClearColor(0.11f, 0.12f, 0.15f, 1.0f);
+  glClear(GL_COLOR_BUFFER_BIT);
+  ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
+  if (a.png_requested) {  // read the canvas now, while this frame's pixels are in it
+    a.png_requested = false;
+    download_canvas_png(a.doc.name.empty() ? "network.png" : a.doc.name + ".png");
+  }
+  if (!a.first_frame_reported) {
+    a.first_frame_reported = true;
+    report("first-frame");
+    EM_ASM(Module.setStatus(null));
+  }
+}
+
+}  // namespace
+
+void frame_entry() { frame(); }
+void positions_entry() { report_positions(); }
+
+}  // namespace apportion::web
+
+using apportion::web::app;
+
+extern "C" {
+
+// Files from the browser (picker, share link, autosave), as JSON; see file_payload.h.
+EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
+  apportion::web::Payload p = apportion::web::read_payload(payload);
+  if (!p.loaded.ok()) {
+    app().open_errors.clear();
+    for (const auto& d : p.loaded.diagnostics.items)
+      if (d.severity == apportion::Severity::kError) app().open_errors.push_back(d.to_string());
+    apportion::web::report("open-failed");
+    return;
+  }
+  const std::string label = p.source == "link" ? "from a share link" : p.source == "autosave" ? "autosaved" : p.name;
+  apportion::web::set_document(std::move(*p.loaded.network), label, /*save=*/p.source != "autosave");
+  apportion::web::report("opened");
+}
+
+// Answers of the solver worker (web/browser/shell.html forwards them).
+EMSCRIPTEN_KEEPALIVE void apportion_solve_progress(int id, const char* json) {
+  apportion::web::receive_solve_progress(id, json);
+}
+EMSCRIPTEN_KEEPALIVE void apportion_solve_done(int id, const char* result) { apportion::web::receive_solve_result(id, result); }
+EMSCRIPTEN_KEEPALIVE void apportion_solve_failed(int id, const char* message) {
+  apportion::web::receive_solve_failure(id, message);
+}
+
+// Autosave trouble and other tabs: "quota:<detail>" or "other-tab:<network name>".
+EMSCRIPTEN_KEEPALIVE void apportion_storage_event(const char* what) {
+  const std::string s = what;
+  if (s.rfind("quota:", 0) == 0) {
+    app().notice = "Autosave failed: " + s.substr(6) + ". Use Save network to keep your work in a file.";
+    apportion::web::report("autosave-failed");
+  } else if (s.rfind("other-tab:", 0) == 0) {
+    app().other_tab_saved = true;
+    apportion::web::report("other-tab-saved");
+  }
+}
+
+// The test hook: runs a button's action by name; "positions" reports node positions.
+EMSCRIPTEN_KEEPALIVE void apportion_test_action(const char* what) {
+  if (std::string(what) == "positions") apportion::web::positions_entry();
+  else apportion::web::action(what);
+}
+
+}  // extern "C"
+
+int main() {
+  apportion::LoadResult demo = apportion::read_network_json(kDemoNetworkJson);
+  if (!glfwInit()) {
+    std::printf("apportion:error GLFW could not start\n");
+    return 1;
+  }
+  glfwWindowHint(GLFW_CLIENT_API, GLFW_OPENGL_ES_API);
+  glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 3);
+  glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 0);
+  app().window = glfwCreateWindow(800, 600, "Apportion", nullptr, nullptr);
+  if (!app().window) {
+    std::printf("apportion:error WebGL2 is not available in this browser\n");
+    return 1;
+  }
+  glfwMakeContextCurrent(app().window);
+  IMGUI_CHECKVERSION();
+  ImGui::CreateContext();
+  ImGui::GetIO().IniFilename = nullptr;  // no file system in the page
+  ImGui_ImplGlfw_InitForOpenGL(app().window, true);
+  // Emscripten's GLFW reports the mouse in canvas backing-store pixels (CSS x DPR); the UI
+  // is laid out in CSS pixels. The cursor is taken as inside from the start, so that the
+  // backend never falls back to the unscaled position.
+  glfwSetCursorPosCallback(app().window, [](GLFWwindow* w, double x, double y) {
+    const double s = app().dpr > 0 ? app().dpr : 1.0;
+    ImGui_ImplGlfw_CursorPosCallback(w, x / s, y / s);
+  });
+  ImGui_ImplGlfw_CursorEnterCallback(app().window, GLFW_TRUE);
+  ImGui_ImplOpenGL3_Init("#version 300 es");
+  app().dpr = 0;  // forces apply_scale on the first frame
+  if (demo.ok()) apportion::web::set_document(std::move(*demo.network), "demo network", /*save=*/false);
+  apportion::web::load_startup_network();
+  emscripten_set_main_loop(apportion::web::frame_entry, 0, false);
+  return 0;
+}

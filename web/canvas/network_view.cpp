@@ -1,0 +1,309 @@
+// Drawing of the network canvas and the mouse on it; see network_view.h.
+#include "canvas/network_view.h"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <imgui.h>
+#include <string>
+
+namespace apportion::web {
+
+namespace {
+
+// Okabe-Ito colours (M. Okabe, K. Ito, "Color Universal Design", 2008), readable with the
+// common colour-vision deficiencies, for what is picked out on top of the utilisation scale.
+constexpr ImU32 kFocus = IM_COL32(230, 159, 0, 255);      // orange: the filtered demand's or tier's flow
+constexpr ImU32 kBinding = IM_COL32(213, 94, 0, 255);     // vermillion: binding arcs
+constexpr ImU32 kSelected = IM_COL32(86, 180, 233, 255);  // sky blue: selection
+constexpr ImU32 kMatch = IM_COL32(240, 228, 66, 255);     // yellow: search matches
+constexpr ImU32 kInk = IM_COL32(230, 232, 236, 255);
+
+ImU32 to_imgui(const Rgb& c, float alpha = 1.0f) {
+  return ImGui::ColorConvertFloat4ToU32(ImVec4(c.r, c.g, c.b, alpha));
+}
+
+float distance_to_segment(ImVec2 p, ImVec2 a, ImVec2 b) {
+  const float dx = b.x - a.x, dy = b.y - a.y;
+  const float len2 = std::max(1e-6f, dx * dx + dy * dy);
+  const float t = std::clamp(((p.x - a.x) * dx + (p.y - a.y) * dy) / len2, 0.0f, 1.0f);
+  const float ex = a.x + t * dx - p.x, ey = a.y + t * dy - p.y;
+  return std::sqrt(ex * ex + ey * ey);
+}
+
+
+}  // namespace
+
+CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const Selection& selection,
+                         const std::vector<char>& highlight, Tool tool, ViewState& view, float ui_scale) {
+  const auto started = std::chrono::steady_clock::now();
+  CanvasInput in;
+  ImDrawList* dl = ImGui::GetWindowDrawList();
+  const ImVec2 origin = ImGui::GetCursorScreenPos();
+  const ImVec2 avail = ImGui::GetContentRegionAvail();
+  view.canvas_x = origin.x, view.canvas_y = origin.y, view.canvas_w = avail.x, view.canvas_h = avail.y;
+  if (avail.x < 10 || avail.y < 10) return in;
+  if (!view.fitted) {
+    view.layout = fit_layout(net, avail.x, avail.y, 40 * ui_scale, 120 * ui_scale);
+    view.pan_x = view.pan_y = 0;
+    view.zoom = 1;
+    view.fitted = true;
+  }
+
+  // Pan and zoom first, so that this frame draws with this frame's view.
+  ImGui::InvisibleButton("canvas", avail,
+                         ImGuiButtonFlags_MouseButtonLeft | ImGuiButtonFlags_MouseButtonRight | ImGuiButtonFlags_MouseButtonMiddle);
+  const bool hovered = ImGui::IsItemHovered();
+  const bool active = ImGui::IsItemActive();
+  const bool pressed = ImGui::IsItemClicked(ImGuiMouseButton_Left);
+  const bool released = ImGui::IsItemDeactivated() && ImGui::IsMouseReleased(ImGuiMouseButton_Left);
+  ImGuiIO& io = ImGui::GetIO();
+  const ImVec2 mouse = io.MousePos;
+  if (active && (ImGui::IsMouseDragging(ImGuiMouseButton_Right) || ImGui::IsMouseDragging(ImGuiMouseButton_Middle))) {
+    view.pan_x += io.MouseDelta.x;
+    view.pan_y += io.MouseDelta.y;
+  }
+  if (hovered && io.MouseWheel != 0) {
+    const float factor = std::pow(1.15f, io.MouseWheel);
+    const float mx = mouse.x - origin.x, my = mouse.y - origin.y;
+    view.pan_x = mx - (mx - view.pan_x) * factor;  // zoom about the cursor
+    view.pan_y = my - (my - view.pan_y) * factor;
+    view.zoom = std::clamp(view.zoom * factor, 0.02f, 200.0f);
+  }
+  const float unit = static_cast<float>(view.layout.scale) * view.zoom;  // device pixels per document unit
+  auto at = [&](int v) {
+    const auto [x, y] = view.layout.position(net.nodes[v]);
+    return ImVec2(origin.x + view.pan_x + static_cast<float>(x) * view.zoom,
+                  origin.y + view.pan_y + static_cast<float>(y) * view.zoom);
+  };
+  auto to_doc = [&](ImVec2 p, double& x, double& y) {
+    x = ((p.x - origin.x - view.pan_x) / view.zoom - view.layout.margin) / view.layout.scale + view.layout.min_x;
+    y = ((p.y - origin.y - view.pan_y) / view.zoom - view.layout.margin) / view.layout.scale + view.layout.min_y;
+  };
+
+  dl->PushClipRect(origin, ImVec2(origin.x + avail.x, origin.y + avail.y), true);
+  view.node_screen.resize(2 * net.nodes.size());
+  for (int v = 0; v < net.node_count(); ++v) {
+    const ImVec2 c = at(v);
+    view.node_screen[2 * v] = c.x, view.node_screen[2 * v + 1] = c.y;
+  }
+  const float node_r = 7 * ui_scale;
+  int hover_node = -1;
+  if (hovered)
+    for (int v = net.node_count() - 1; v >= 0 && hover_node < 0; --v) {
+      const float dx = view.node_screen[2 * v] - mouse.x, dy = view.node_screen[2 * v + 1] - mouse.y;
+      if (dx * dx + dy * dy <= (node_r + 3 * ui_scale) * (node_r + 3 * ui_scale)) hover_node = v;
+    }
+
+  // What is in focus: one demand, one tier, or everything.
+  const int demands = flow ? static_cast<int>(flow->demands.size()) : 0;
+  const int focus_demand = view.filter_demand >= 0 && view.filter_demand < demands ? view.filter_demand : -1;
+  const Tier* focus_tier = nullptr;
+  if (flow && focus_demand < 0)
+    for (const Tier& t : flow->tiers)
+      if (t.index == view.filter_tier) focus_tier = &t;
+  const bool filtering = focus_demand >= 0 || focus_tier;
+  auto in_focus = [&](int k) {
+    if (focus_demand >= 0) return k == focus_demand;
+    if (focus_tier) return flow->demands[k].tier == focus_tier->index;
+    return true;
+  };
+  const std::vector<int>* binding = focus_demand >= 0 ? &flow->demands[focus_demand].binding_arcs
+                                    : focus_tier      ? &focus_tier->binding_arcs
+                                                      : nullptr;
+
+  double max_cap = 0;
+  for (const Arc& a : net.arcs) max_cap = std::max(max_cap, a.capacity);
+  const std::vector<char> twin = arcs_with_twin(net);
+  // Per-arc marks, so that each arc is looked up once, not searched for in the selection.
+  std::vector<char> arc_selected(net.arcs.size(), 0), arc_binding(net.arcs.size(), 0);
+  for (int e : selection.arcs)
+    if (e >= 0 && e < net.arc_count()) arc_selected[e] = 1;
+  if (binding)
+    for (int e : *binding)
+      if (e >= 0 && e < net.arc_count()) arc_binding[e] = 1;
+  const float time = static_cast<float>(ImGui::GetTime());
+  int hover_arc = -1;
+  float best = 8 * ui_scale;
+  for (int a = 0; a < net.arc_count(); ++a) {
+    const Arc& arc = net.arcs[a];
+    const ImVec2 from = at(arc.from), to = at(arc.to);
+    const ArcGeometry geo = arc_geometry(twin[a], from.x, from.y, to.x, to.y, 5.0f * ui_scale);
+    const ImVec2 p(geo.x0, geo.y0), q(geo.x1, geo.y1);
+    // Off-screen arcs cost nothing more.
+    if (std::max(p.x, q.x) < origin.x || std::min(p.x, q.x) > origin.x + avail.x || std::max(p.y, q.y) < origin.y ||
+        std::min(p.y, q.y) > origin.y + avail.y)
+      continue;
+    const float width =
+        (1.5f + 5.0f * static_cast<float>(std::sqrt(max_cap > 0 ? arc.capacity / max_cap : 0))) * ui_scale;
+    const ArcLoad* load = flow && a < static_cast<int>(flow->arcs.size()) ? &flow->arcs[a] : nullptr;
+    double focus_flow = 0;
+    if (load)
+      for (auto [k, f] : load->per_demand)
+        if (in_focus(k)) focus_flow += f;
+    if (arc_selected[a]) dl->AddLine(p, q, kSelected, width + 6 * ui_scale);
+    if (arc_binding[a]) dl->AddLine(p, q, kBinding, width + 4 * ui_scale);
+    ImU32 colour;
+    if (!arc.enabled) colour = IM_COL32(100, 100, 100, 128);
+    else if (filtering) colour = focus_flow != 0 ? kFocus : IM_COL32(140, 150, 165, 64);
+    else colour = load ? to_imgui(utilisation_colour(load->utilisation)) : IM_COL32(140, 150, 165, 255);
+    dl->AddLine(p, q, colour, width);
+    if (!arc.shared_two_way && geo.length > 4 * node_r) {  // an arrowhead at two thirds of the way
+      const float ux = (q.x - p.x) / geo.length, uy = (q.y - p.y) / geo.length;
+      const ImVec2 tip(p.x + (q.x - p.x) * 0.67f, p.y + (q.y - p.y) * 0.67f);
+      const float s = 5 * ui_scale + width * 0.5f;
+      dl->AddTriangleFilled(ImVec2(tip.x + ux * s, tip.y + uy * s), ImVec2(tip.x - uy * s, tip.y + ux * s),
+                            ImVec2(tip.x + uy * s, tip.y - ux * s), colour);
+    }
+    // Moving marks: spacing fixed, speed by utilisation, direction by the flow in focus.
+    if (load && view.animate && focus_flow != 0) {
+      const float spacing = 28 * ui_scale;
+      const float speed = (20.0f + 100.0f * static_cast<float>(std::min(1.0, load->utilisation))) * ui_scale;
+      const float phase = std::fmod(time * speed, spacing);
+      for (float d = phase; d < geo.length; d += spacing) {
+        const float t = focus_flow > 0 ? d / geo.length : 1.0f - d / geo.length;
+        dl->AddCircleFilled(ImVec2(p.x + (q.x - p.x) * t, p.y + (q.y - p.y) * t), 2.2f * ui_scale,
+                            IM_COL32(255, 255, 255, 220), 8);
+      }
+    }
+    if (hovered && hover_node < 0) {
+      const float d = distance_to_segment(mouse, p, q);
+      if (d < best) best = d, hover_arc = a;
+    }
+  }
+
+  // Nodes; labels stay the same size on screen, and are left out when too dense to read.
+  const bool dense = net.node_count() > 0 &&
+                     avail.x * avail.y / net.node_count() < 2500 * ui_scale * ui_scale * (1.0f / (view.zoom * view.zoom));
+  std::vector<char> node_selected(net.nodes.size(), 0);
+  for (int v : selection.nodes)
+    if (v >= 0 && v < net.node_count()) node_selected[v] = 1;
+  for (int v = 0; v < net.node_count(); ++v) {
+    const ImVec2 c = at(v);
+    if (c.x < origin.x - 50 || c.x > origin.x + avail.x + 50 || c.y < origin.y - 50 || c.y > origin.y + avail.y + 50)
+      continue;
+    const bool selected = node_selected[v];
+    const bool match = v < static_cast<int>(highlight.size()) && highlight[v];
+    if (match) dl->AddCircle(c, node_r + 6 * ui_scale, kMatch, 0, 2.5f * ui_scale);
+    if (selected || v == view.pending_from) dl->AddCircleFilled(c, node_r + 3 * ui_scale, kSelected);
+    dl->AddCircleFilled(c, node_r, kInk);
+    if (!dense || selected || match || v == hover_node) {
+      const std::string& label = net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
+      dl->AddText(ImVec2(c.x + 9 * ui_scale, c.y - 8 * ui_scale), kInk, label.c_str());
+    }
+  }
+
+  // The mouse: a click, a move of the selected nodes, a selection box, or a new link.
+  if (pressed) {
+    view.pressed_node = hover_node;
+    view.press_x = mouse.x, view.press_y = mouse.y;
+    view.moving = view.boxing = false;
+  }
+  if (active && ImGui::IsMouseDown(ImGuiMouseButton_Left) && ImGui::IsMouseDragging(ImGuiMouseButton_Left, 4 * ui_scale) &&
+      tool == Tool::kSelect) {
+    if (view.pressed_node >= 0) {
+      // The first moving frame catches up with the whole drag, threshold included.
+      const ImVec2 step = view.moving ? io.MouseDelta : ImGui::GetMouseDragDelta(ImGuiMouseButton_Left);
+      if (!view.moving) {
+        view.moving = true;
+        in.move_started = true;
+        in.clicked_node = view.pressed_node;  // the app selects it first when it is not selected
+        in.additive = io.KeyShift;
+      }
+      in.move_dx = step.x / unit;
+      in.move_dy = step.y / unit;
+    } else {
+      view.boxing = true;
+    }
+  }
+  // A drag that began and ended between two frames (a quick flick, or a slow frame) shows
+  // up only at the release: it still moves or selects.
+  const ImVec2 drag = released ? ImGui::GetMouseDragDelta(ImGuiMouseButton_Left, 4 * ui_scale) : ImVec2(0, 0);
+  const bool late_drag = released && !view.moving && !view.boxing && (drag.x != 0 || drag.y != 0) && tool == Tool::kSelect;
+  if (late_drag && view.pressed_node >= 0) {
+    in.move_started = true;
+    in.clicked_node = view.pressed_node;
+    in.additive = io.KeyShift;
+    in.move_dx = drag.x / unit;
+    in.move_dy = drag.y / unit;
+    in.move_ended = true;
+  } else if (view.boxing || late_drag) {
+    const ImVec2 a(std::min(view.press_x, mouse.x), std::min(view.press_y, mouse.y));
+    const ImVec2 b(std::max(view.press_x, mouse.x), std::max(view.press_y, mouse.y));
+    dl->AddRectFilled(a, b, IM_COL32(86, 180, 233, 40));
+    dl->AddRect(a, b, kSelected);
+    if (released) {
+      in.box_done = true;
+      in.additive = io.KeyShift;
+      std::vector<char> inside(net.nodes.size(), 0);
+      for (int v = 0; v < net.node_count(); ++v) {
+        const float x = view.node_screen[2 * v], y = view.node_screen[2 * v + 1];
+        if (x >= a.x && x <= b.x && y >= a.y && y <= b.y) in.box.nodes.push_back(v), inside[v] = 1;
+      }
+      for (int e = 0; e < net.arc_count(); ++e)
+        if (inside[net.arcs[e].from] && inside[net.arcs[e].to]) in.box.arcs.push_back(e);
+      view.boxing = false;
+    }
+  } else if (view.moving) {
+    if (released) view.moving = false, in.move_ended = true;
+  } else if (released && hovered && drag.x == 0 && drag.y == 0) {
+    // A click (released without dragging).
+    in.additive = io.KeyShift;
+    to_doc(mouse, in.doc_x, in.doc_y);
+    if (tool == Tool::kAddArc || tool == Tool::kAddDemand) {
+      if (hover_node < 0) {
+        view.pending_from = -1;
+      } else if (view.pending_from < 0 || view.pending_from >= net.node_count()) {
+        view.pending_from = hover_node;
+      } else if (hover_node != view.pending_from) {
+        in.link_from = view.pending_from, in.link_to = hover_node;
+        view.pending_from = -1;
+      }
+    } else if (hover_node >= 0) {
+      in.clicked_node = hover_node;
+    } else if (hover_arc >= 0 && tool == Tool::kSelect) {
+      in.clicked_arc = hover_arc;
+    } else {
+      in.clicked_empty = true;
+    }
+  }
+  if ((tool == Tool::kAddArc || tool == Tool::kAddDemand) && view.pending_from >= 0 && view.pending_from < net.node_count())
+    dl->AddLine(at(view.pending_from), mouse, tool == Tool::kAddArc ? kSelected : kFocus, 2 * ui_scale);
+
+  if (flow) {  // legend
+    const ImVec2 l0(origin.x + 12 * ui_scale, origin.y + avail.y - 24 * ui_scale);
+    const float w = 160 * ui_scale, h = 10 * ui_scale;
+    for (int i = 0; i < 32; ++i)
+      dl->AddRectFilled(ImVec2(l0.x + w * i / 32, l0.y), ImVec2(l0.x + w * (i + 1) / 32, l0.y + h),
+                        to_imgui(utilisation_colour(i / 31.0)));
+    dl->AddText(ImVec2(l0.x, l0.y - 16 * ui_scale), kInk,
+                filtering ? "orange: flow in the filter; red outline: its binding arcs"
+                          : "arc utilisation 0 %  (width: capacity; dots move with the flow)");
+    dl->AddText(ImVec2(l0.x + w + 6 * ui_scale, l0.y - 2 * ui_scale), kInk, "100 %");
+  }
+  dl->PopClipRect();
+
+  if (hover_node >= 0 && !view.moving && !view.boxing) {
+    const Node& n = net.nodes[hover_node];
+    ImGui::BeginTooltip();
+    ImGui::Text("node %s%s%s", n.id.c_str(), n.label.empty() ? "" : ": ", n.label.c_str());
+    ImGui::EndTooltip();
+  } else if (hover_arc >= 0 && !view.moving && !view.boxing) {
+    const Arc& arc = net.arcs[hover_arc];
+    ImGui::BeginTooltip();
+    ImGui::Text("arc %s: %s -> %s%s", arc.id.c_str(), net.nodes[arc.from].id.c_str(), net.nodes[arc.to].id.c_str(),
+                arc.shared_two_way ? " (shared two-way)" : "");
+    ImGui::Text("capacity %.6g %s%s", arc.capacity, net.units.capacity.c_str(), arc.enabled ? "" : " (disabled)");
+    if (flow && hover_arc < static_cast<int>(flow->arcs.size())) {
+      const ArcLoad& l = flow->arcs[hover_arc];
+      ImGui::Text("load %.6g (%.1f %%), shadow price %.4g%s", l.load, 100 * l.utilisation, l.shadow_price,
+                  l.tier ? (", binds in tier " + std::to_string(l.tier)).c_str() : "");
+      for (auto [k, f] : l.per_demand) ImGui::BulletText("%s: %.6g", net.demands[k].id.c_str(), f);
+    }
+    ImGui::EndTooltip();
+  }
+  view.frame_ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - started).count();
+  return in;
+}
+
+}  // namespace apportion::web

@@ -1,0 +1,99 @@
+// The demands as an editable table: one row per demand, every cell an edit with undo,
+// origin and destination typed as node ids. Rows are clipped, so thousands of demands
+// scroll smoothly.
+#include <imgui.h>
+
+#include <string>
+
+#include "app/app_state.h"
+#include "apportion/model/number_text.h"
+#include "panels/field_editors.h"
+#include "panels/panels.h"
+
+namespace apportion::web {
+
+void draw_demand_table() {
+  App& a = app();
+  if (ImGui::Button("Add demand")) {
+    if (a.doc.node_count() < 2) {
+      a.notice = "A demand needs two nodes; add nodes first.";
+    } else {
+      int k = -1;
+      edit("add a demand", true, [&](Network& d) { k = add_demand(d, 0, d.node_count() - 1); });
+      a.selection = Selection{};
+      a.selection.demands.push_back(k);
+    }
+  }
+  ImGui::SameLine();
+  ImGui::TextDisabled("or use the Add demand tool: click its origin, then its destination");
+  const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_ScrollY |
+                                ImGuiTableFlags_Resizable | ImGuiTableFlags_SizingStretchProp;
+  if (!ImGui::BeginTable("demand-table", 7, flags)) return;
+  ImGui::TableSetupScrollFreeze(0, 1);
+  ImGui::TableSetupColumn("id");
+  ImGui::TableSetupColumn("origin");
+  ImGui::TableSetupColumn("destination");
+  ImGui::TableSetupColumn("amount (empty: max)");
+  ImGui::TableSetupColumn("weight");
+  ImGui::TableSetupColumn("label");
+  ImGui::TableSetupColumn("", ImGuiTableColumnFlags_WidthFixed);
+  ImGui::TableHeadersRow();
+  ImGuiListClipper clipper;
+  clipper.Begin(static_cast<int>(a.doc.demands.size()));
+  int remove = -1;
+  while (clipper.Step()) {
+    for (int k = clipper.DisplayStart; k < clipper.DisplayEnd; ++k) {
+      const Demand& dm = a.doc.demands[k];
+      ImGui::PushID(k);
+      ImGui::TableNextRow();
+      std::string s;
+      double x;
+      ImGui::TableNextColumn();
+      ImGui::SetNextItemWidth(-1);
+      if (edit_text("##id", dm.id, s)) {
+        if (s.empty() || a.doc.find_demand(s) >= 0) a.notice = "The demand id '" + s + "' is empty or taken.";
+        else edit("rename demand " + dm.id, true, [&](Network& d) { d.demands[k].id = s; });
+      }
+      for (int end = 0; end < 2; ++end) {
+        ImGui::TableNextColumn();
+        ImGui::SetNextItemWidth(-1);
+        const int node = end == 0 ? dm.origin : dm.destination;
+        if (edit_text(end == 0 ? "##origin" : "##destination", a.doc.nodes[node].id, s)) {
+          const int v = a.doc.find_node(s);
+          if (v < 0) a.notice = "There is no node '" + s + "'.";
+          else
+            edit((end == 0 ? "origin of demand " : "destination of demand ") + dm.id, true, [&](Network& d) {
+              (end == 0 ? d.demands[k].origin : d.demands[k].destination) = v;
+            });
+        }
+      }
+      ImGui::TableNextColumn();
+      ImGui::SetNextItemWidth(-1);
+      if (edit_text("##amount", dm.amount ? format_number(*dm.amount) : std::string(), s)) {
+        const std::optional<double> v = parse_number(s);
+        if (s.empty()) edit("amount of demand " + dm.id, true, [&](Network& d) { d.demands[k].amount.reset(); });
+        else if (v && *v >= 0)
+          edit("amount of demand " + dm.id, true, [&](Network& d) { d.demands[k].amount = *v; });
+        else a.notice = "The amount must be a number >= 0, or empty for as much as possible.";
+      }
+      ImGui::TableNextColumn();
+      ImGui::SetNextItemWidth(-1);
+      if (edit_number("##weight", dm.weight, x)) edit("weight of demand " + dm.id, true, [&](Network& d) { d.demands[k].weight = x; });
+      ImGui::TableNextColumn();
+      ImGui::SetNextItemWidth(-1);
+      if (edit_text("##label", dm.label, s)) edit("label of demand " + dm.id, false, [&](Network& d) { d.demands[k].label = s; });
+      ImGui::TableNextColumn();
+      if (ImGui::SmallButton("x")) remove = k;
+      if (ImGui::IsItemHovered()) ImGui::SetTooltip("Delete demand %s", dm.id.c_str());
+      ImGui::PopID();
+    }
+  }
+  ImGui::EndTable();
+  if (remove >= 0) {
+    Selection sel;
+    sel.demands.push_back(remove);
+    edit("delete demand " + a.doc.demands[remove].id, true, [&](Network& d) { remove_items(d, sel); });
+  }
+}
+
+}  // namespace apportion::web

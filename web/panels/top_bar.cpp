@@ -1,0 +1,222 @@
+// Above the canvas: the toolbar (files, exports, undo and redo, editing tools, search, the
+// rule and its options, solve with progress and cancel) and the notices (a file that did not
+// open, validation messages that select their item on click, autosave trouble).
+#include <emscripten.h>
+#include <imgui.h>
+
+#include <algorithm>
+#include <cctype>
+#include <cstdio>
+#include <cstring>
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "app/app_state.h"
+#include "browser/browser_bridge.h"
+#include "panels/panels.h"
+
+namespace apportion::web {
+
+namespace {
+
+bool tool_button(const char* label, Tool tool, const char* tip) {
+  App& a = app();
+  const bool on = a.tool == tool;
+  if (on) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_ButtonActive));
+  const bool pressed = ImGui::Button(label);
+  if (on) ImGui::PopStyleColor();
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
+  if (pressed) a.tool = tool, a.view.pending_from = -1;
+  return pressed;
+}
+
+void update_search() {
+  App& a = app();
+  a.search_hits.assign(a.doc.nodes.size(), 0);
+  std::string q = a.search;
+  if (q.empty()) return;
+  auto lower = [](std::string s) {
+    for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    return s;
+  };
+  q = lower(q);
+  Selection found;
+  for (int v = 0; v < a.doc.node_count(); ++v)
+    if (lower(a.doc.nodes[v].id).find(q) != std::string::npos || lower(a.doc.nodes[v].label).find(q) != std::string::npos)
+      a.search_hits[v] = 1, found.nodes.push_back(v);
+  for (int e = 0; e < a.doc.arc_count(); ++e)
+    if (lower(a.doc.arcs[e].id).find(q) != std::string::npos) found.arcs.push_back(e);
+  for (int k = 0; k < static_cast<int>(a.doc.demands.size()); ++k)
+    if (lower(a.doc.demands[k].id).find(q) != std::string::npos ||
+        lower(a.doc.demands[k].label).find(q) != std::string::npos)
+      found.demands.push_back(k);
+  a.selection = found;
+}
+
+void recover_menu() {
+  if (!ImGui::BeginPopup("recover")) return;
+  static std::string listed;
+  static nlohmann::json versions;
+  if (ImGui::IsWindowAppearing()) {
+    listed = autosave_versions();
+    versions = nlohmann::json::parse(listed, nullptr, false);
+  }
+  ImGui::TextUnformatted("Autosaved versions in this browser, newest first:");
+  bool any = false;
+  if (versions.is_array())
+    for (const auto& v : versions) {
+      if (!v.is_object() || !v.contains("slot") || !v["slot"].is_number_integer()) continue;
+      any = true;
+      const double ms = v.contains("time") && v["time"].is_number() ? v["time"].get<double>() : 0;
+      const double minutes = (EM_ASM_DOUBLE({ return Date.now(); }) - ms) / 60000.0;
+      const std::string name = v.contains("name") && v["name"].is_string() ? v["name"].get<std::string>() : "";
+      char label[200];
+      std::snprintf(label, sizeof label, "%s, %.0f min ago (%.0f KB)##%d", name.empty() ? "(unnamed)" : name.c_str(), minutes,
+                    v.contains("bytes") && v["bytes"].is_number() ? v["bytes"].get<double>() / 1024 : 0.0,
+                    v["slot"].get<int>());
+      if (ImGui::Selectable(label)) restore_autosave(v["slot"].get<int>());
+    }
+  if (!any) ImGui::TextDisabled("none yet");
+  ImGui::EndPopup();
+}
+
+}  // namespace
+
+void draw_toolbar() {
+  App& a = app();
+  const bool solved = current_result() != nullptr;
+  if (ImGui::Button("Open network...")) action("open");
+  ImGui::SameLine();
+  if (ImGui::Button("Save network")) action("save-network");
+  ImGui::SameLine();
+  if (ImGui::Button("Copy share link")) action("share-link");
+  ImGui::SameLine();
+  if (ImGui::Button("Recover...")) ImGui::OpenPopup("recover");
+  recover_menu();
+  ImGui::SameLine();
+  if (ImGui::Button("Export...")) ImGui::OpenPopup("export");
+  if (ImGui::BeginPopup("export")) {
+    if (ImGui::MenuItem("Shares per demand (CSV)", nullptr, false, solved)) action("export-demands-csv");
+    if (ImGui::MenuItem("Loads per arc (CSV)", nullptr, false, solved)) action("export-arcs-csv");
+    if (ImGui::MenuItem("Paths (CSV)", nullptr, false, solved)) action("export-paths-csv");
+    if (ImGui::MenuItem("Full result (JSON)", nullptr, false, solved)) action("export-result-json");
+    ImGui::Separator();
+    if (ImGui::MenuItem("Picture (SVG)")) action("export-svg");
+    if (ImGui::MenuItem("Canvas (PNG)")) action("export-png");
+    ImGui::EndPopup();
+  }
+  ImGui::SameLine();
+  ImGui::BeginDisabled(!a.history.can_undo());
+  if (ImGui::Button("Undo")) undo();
+  if (ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled))
+    ImGui::SetTooltip("Undo %s (Ctrl+Z)", a.history.undo_name().c_str());
+  ImGui::EndDisabled();
+  ImGui::SameLine();
+  ImGui::BeginDisabled(!a.history.can_redo());
+  if (ImGui::Button("Redo")) redo();
+  if (ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled))
+    ImGui::SetTooltip("Redo %s (Ctrl+Y or Ctrl+Shift+Z)", a.history.redo_name().c_str());
+  ImGui::EndDisabled();
+  ImGui::SameLine();
+  ImGui::TextDisabled("|");
+  ImGui::SameLine();
+  tool_button("Select", Tool::kSelect, "Click to select (Shift adds), drag nodes to move them, drag on empty canvas to "
+                                       "select a box. Right-drag pans, the wheel zooms. (Esc)");
+  ImGui::SameLine();
+  tool_button("Add node", Tool::kAddNode, "Click on empty canvas to add a node there.");
+  ImGui::SameLine();
+  tool_button("Add arc", Tool::kAddArc, "Click the tail node, then the head node.");
+  ImGui::SameLine();
+  tool_button("Add demand", Tool::kAddDemand, "Click the origin, then the destination.");
+  ImGui::SameLine();
+  if (ImGui::Button("Fit")) action("fit");
+  ImGui::SameLine();
+  if (ImGui::Button("Arrange")) action("arrange");
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("Place all nodes by force-directed layout (undoable).");
+  ImGui::SameLine();
+  ImGui::SetNextItemWidth(150);
+  if (ImGui::InputTextWithHint("##search", "find id or label", a.search, sizeof a.search)) update_search();
+
+  // Rule, options, solve.
+  ImGui::SetNextItemWidth(250);
+  if (ImGui::Combo("rule", &a.objective, kObjectiveLabels, IM_ARRAYSIZE(kObjectiveLabels))) request_solve();
+  ImGui::SameLine();
+  if (kObjectives[a.objective] == FairObjective::kTradeoff) {
+    float eps = static_cast<float>(a.options.epsilon);
+    ImGui::SetNextItemWidth(120);
+    if (ImGui::SliderFloat("fairness given up", &eps, 0.0f, 1.0f, "%.2f")) a.options.epsilon = eps;
+    if (ImGui::IsItemDeactivatedAfterEdit()) request_solve();
+    ImGui::SameLine();
+  }
+  ImGui::SetNextItemWidth(80);
+  if (ImGui::InputInt("hop limit", &a.options.routing.hop_limit)) {
+    a.options.routing.hop_limit = std::max(0, a.options.routing.hop_limit);
+    request_solve();
+  }
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("Paths of at most this many arcs (0: no limit).");
+  ImGui::SameLine();
+  ImGui::SetNextItemWidth(80);
+  if (ImGui::InputInt("paths per demand", &a.options.routing.k_paths)) {
+    a.options.routing.k_paths = std::max(0, a.options.routing.k_paths);
+    request_solve();
+  }
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("Only the k shortest paths of each demand (0: any path).");
+  ImGui::SameLine();
+  ImGui::Checkbox("solve after each edit", &a.auto_solve);
+  ImGui::SameLine();
+  if (a.solve.running) {
+    if (ImGui::Button("Cancel")) cancel_solve();
+    ImGui::SameLine();
+    const double seconds = (emscripten_get_now() - a.solve.started_ms) / 1000.0;
+    const float fraction = a.solve.demands > 0 ? static_cast<float>(a.solve.settled) / a.solve.demands : 0.0f;
+    char overlay[160];
+    std::snprintf(overlay, sizeof overlay, "%s: %d of %d demands settled, %d LPs, %.1f s",
+                  a.solve.stage.empty() ? "starting" : a.solve.stage.c_str(), a.solve.settled, a.solve.demands,
+                  a.solve.lp_solves, seconds);
+    ImGui::ProgressBar(fraction, ImVec2(-1, 0), overlay);
+  } else {
+    if (ImGui::Button("Solve")) request_solve();
+    ImGui::SameLine();
+    ImGui::Checkbox("animate", &a.view.animate);
+  }
+}
+
+void draw_notices() {
+  App& a = app();
+  if (!a.open_errors.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::TextUnformatted("The file was not opened; the current network is unchanged:");
+    for (const std::string& m : a.open_errors) ImGui::BulletText("%s", m.c_str());
+    ImGui::PopStyleColor();
+    if (ImGui::SmallButton("Dismiss")) a.open_errors.clear();
+  }
+  if (a.other_tab_saved) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.75f, 0.35f, 1.0f));
+    ImGui::TextWrapped("Another tab autosaved a network in this browser. Both tabs' work is kept: this tab's next "
+                       "edit is saved as a new version, and Recover... lists the other tab's.");
+    ImGui::PopStyleColor();
+    ImGui::SameLine();
+    if (ImGui::SmallButton("OK##othertab")) a.other_tab_saved = false;
+  }
+  if (!a.notice.empty()) {
+    ImGui::TextWrapped("%s", a.notice.c_str());
+    ImGui::SameLine();
+    if (ImGui::SmallButton("OK##notice")) a.notice.clear();
+  }
+  int shown = 0;
+  for (const Diagnostic& d : a.diagnostics.items) {
+    if (shown == 6) {
+      ImGui::TextDisabled("... and %zu more", a.diagnostics.items.size() - 6);
+      break;
+    }
+    ++shown;
+    const bool error = d.severity == Severity::kError;
+    ImGui::PushStyleColor(ImGuiCol_Text, error ? ImVec4(1.0f, 0.55f, 0.45f, 1.0f) : ImVec4(0.85f, 0.85f, 0.6f, 1.0f));
+    const std::string text = d.to_string() + "##diag" + std::to_string(shown);
+    if (ImGui::Selectable(text.c_str())) select_item(d.item_kind, d.item_id);
+    ImGui::PopStyleColor();
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Click to select %s %s", d.item_kind.c_str(), d.item_id.c_str());
+  }
+}
+
+}  // namespace apportion::web
