@@ -10,6 +10,7 @@
 #include "apportion/model/number_text.h"
 #include "apportion/model/tolerance.h"
 #include "apportion/multiflow/path_master.h"
+#include "apportion/multiflow/unit_scale.h"
 
 namespace apportion {
 
@@ -38,8 +39,11 @@ constexpr double kInf = LpSolver::kInf;
 // Everything one solve needs: the graph, the demands and the master LP.
 class Engine {
  public:
-  Engine(const Network& net, const FairOptions& opt)
-      : net_(net),
+  // `careful`: every solve after changed bounds or costs by the dual simplex (see
+  // solve_multiflow): slower, but its solutions lie on their bounds.
+  Engine(const Network& net, const FairOptions& opt, bool careful)
+      : careful_(careful),
+        net_(net),
         opt_(opt),
         g_(FlowGraph::from_network(net)),
         specs_(make_specs(net)),
@@ -59,8 +63,8 @@ class Engine {
   std::vector<Tolerance> demand_tolerances() const;
   int K() const { return static_cast<int>(specs_.size()); }
   LpSolver& lp() { return master_.lp(); }
-  bool solve(MultiflowResult& r) {
-    const LpStatus s = master_.solve();
+  bool solve(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual) {
+    const LpStatus s = master_.solve(first);
     if (opt_.on_progress) {
       progress_.demands = K();
       progress_.lp_solves = master_.stats().lp_solves;
@@ -96,6 +100,10 @@ class Engine {
   void feasibility_certificate(MultiflowResult& r);
   void totals(MultiflowResult& r);
 
+  // The method for a solve after changes that keep the last solution feasible.
+  LpSolver::Method onward() const { return careful_ ? LpSolver::Method::kDual : LpSolver::Method::kPrimal; }
+
+  const bool careful_;
   const Network& net_;
   FairOptions opt_;
   FlowGraph g_;
@@ -171,7 +179,10 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     }
     lp().set_cost(level, -1.0);
     lp().set_column_bounds(level, 0.0, cap_t);
-    if (!solve(r)) return false;
+    // The last round fixed shares where they stood and relaxed or enforced level rows
+    // where they hold: the last solution is still feasible (t lies within [0, cap_t]), so
+    // the primal simplex goes on from it; the dual would first regain dual feasibility.
+    if (!solve(r, onward())) return false;
     const double t = lp().value(level);
 
     Tier tier;
@@ -203,7 +214,9 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
       while (!undecided.empty()) {
         for (int k : undecided) lp().set_cost(master_.share_column(k), -1.0);
         ++r.stats.saturation_tests;
-        if (!solve(r)) return false;
+        // Only costs changed (and t was fixed where it stands): the last solution is still
+        // feasible, and the primal simplex goes on from it.
+        if (!solve(r, onward())) return false;
         std::vector<int> still;
         bool any_grew = false;
         for (int k : undecided) {
@@ -570,9 +583,7 @@ MultiflowResult Engine::run() {
   r.stats.simplex_iterations = ms.simplex_iterations;
   r.stats.pricing_rounds = ms.pricing_rounds;
   r.stats.path_columns = ms.path_columns;
-  r.check = check_multiflow(net_, r);
-  r.status = r.check.ok ? SolveStatus::kOptimal : SolveStatus::kNumericalDifficulty;
-  if (!r.check.ok) r.message = "the independent check failed: " + r.check.worst;
+  r.status = SolveStatus::kOptimal;  // until the check, which the caller runs in the file's units
   return r;
 }
 
@@ -594,8 +605,37 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
       return r;
     }
   }
-  Engine engine(net, options);
-  MultiflowResult r = engine.run();
+  // Solved in an internal unit (unit_scale.h), checked in the file's own.
+  const double scale = unit_scale(net);
+  const Network scaled = scaled_network(net, scale);
+  auto attempt = [&](bool careful) {
+    MultiflowResult r = Engine(scaled, options, careful).run();
+    if (r.status == SolveStatus::kOptimal) {
+      unscale_result(r, scale);
+      r.check = check_multiflow(net, r);
+      if (!r.check.ok) {
+        r.status = SolveStatus::kNumericalDifficulty;
+        r.message = "the independent check failed: " + r.check.worst;
+      }
+    }
+    return r;
+  };
+  // The primal simplex after each round is several times faster, but leaves its solutions
+  // within the LP solver's absolute tolerances rather than on the bounds; where data span
+  // many orders of magnitude that can fail the check on the smallest arcs. Those networks
+  // are solved again the careful way, and only its verdict stands. (Only the max-min rounds
+  // differ between the two ways.)
+  MultiflowResult r = attempt(false);
+  const bool rounds = options.objective == FairObjective::kMaxMinFair || options.objective == FairObjective::kTradeoff;
+  if (r.status == SolveStatus::kNumericalDifficulty && rounds) {
+    const MultiflowStats first = r.stats;
+    r = attempt(true);
+    r.stats.lp_solves += first.lp_solves;
+    r.stats.simplex_iterations += first.simplex_iterations;
+    r.stats.pricing_rounds += first.pricing_rounds;
+    r.stats.path_columns += first.path_columns;
+    r.stats.saturation_tests += first.saturation_tests;
+  }
   if (r.status == SolveStatus::kNumericalDifficulty) {
     // Say what makes this network hard, and what to do about it: the LP solver's tolerances
     // are absolute (1e-7), so a network whose capacities span many orders of magnitude can

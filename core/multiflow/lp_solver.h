@@ -50,11 +50,11 @@ class LpSolver {
   // With hot start off, every solve starts from scratch (a slack basis); for measuring
   // what the hot start saves, never needed otherwise.
   void set_hot_start(bool on) { hot_start_ = on; }
-  // Which simplex method the next solve uses. After columns were added to an optimal basis,
-  // the basis is still primal feasible and the primal simplex goes on from it in a few
-  // iterations; the dual simplex would first have to regain dual feasibility (its phase 1),
-  // which on large networks costs as much as a cold start. After bounds change (a demand
-  // freezes), the basis stays dual feasible and the dual simplex is the right one.
+  // Which simplex method the next solves use (default: dual). After columns were added or
+  // costs changed, an optimal basis is still primal feasible and the primal simplex goes on
+  // from it in a few iterations; the dual simplex would first have to regain dual
+  // feasibility (its phase 1), which on large networks costs as much as a cold start. After
+  // bounds that cut off the current point, the dual simplex is the right one.
   enum class Method { kDual, kPrimal };
   void set_method(Method m);
   double objective() const;

@@ -120,11 +120,10 @@ int PathMaster::price() {
   return added;
 }
 
-LpStatus PathMaster::solve() {
+LpStatus PathMaster::solve(LpSolver::Method first) {
   for (int round = 0; round < kMaxPricingRounds; ++round) {
-    // Round 0 follows changed bounds or costs: dual simplex. Later rounds follow new path
-    // columns only: primal simplex (see LpSolver::set_method).
-    lp_.set_method(round == 0 ? LpSolver::Method::kDual : LpSolver::Method::kPrimal);
+    // Later rounds follow new path columns only: primal simplex (see LpSolver::set_method).
+    lp_.set_method(round == 0 ? first : LpSolver::Method::kPrimal);
     const LpStatus s = lp_.solve();
     ++stats_.lp_solves;
     stats_.simplex_iterations = lp_.total_iterations();

@@ -53,8 +53,11 @@ class PathMaster {
   // Path columns cost their route length (true) or nothing (false).
   void set_route_costs(bool on);
 
-  // Column generation until no path prices out. kFailed after too many rounds.
-  LpStatus solve();
+  // Column generation until no path prices out. kFailed after too many rounds. The first
+  // solve uses `first` (see LpSolver::set_method: the dual simplex after bounds that cut
+  // off the last solution, the primal after cost changes); later ones, after new columns,
+  // the primal.
+  LpStatus solve(LpSolver::Method first = LpSolver::Method::kDual);
 
   const std::vector<Lane>& lanes() const { return pricer_.lanes(); }
   const std::vector<MasterPath>& paths() const { return paths_; }
