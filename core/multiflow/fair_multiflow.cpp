@@ -35,14 +35,17 @@ bool objective_from_name(const std::string& name, FairObjective& out) {
 namespace {
 
 constexpr double kInf = LpSolver::kInf;
+// The cap on a demand's growth in a saturation test, in units of its tolerance: 1e6 x 1e-9
+// = 1e-3 of its own scale, far above the LP tolerances and small enough to share.
+constexpr double kGrowthCap = 1e6;
 
 // Everything one solve needs: the graph, the demands and the master LP.
 class Engine {
  public:
-  // `careful`: every solve after changed bounds or costs by the dual simplex (see
+  // `dual_rounds`: every max-min round and saturation test by the dual simplex (see
   // solve_multiflow): slower, but its solutions lie on their bounds.
-  Engine(const Network& net, const FairOptions& opt, bool careful)
-      : careful_(careful),
+  Engine(const Network& net, const FairOptions& opt, bool dual_rounds)
+      : dual_rounds_(dual_rounds),
         net_(net),
         opt_(opt),
         g_(FlowGraph::from_network(net)),
@@ -101,9 +104,9 @@ class Engine {
   void totals(MultiflowResult& r);
 
   // The method for a solve after changes that keep the last solution feasible.
-  LpSolver::Method onward() const { return careful_ ? LpSolver::Method::kDual : LpSolver::Method::kPrimal; }
+  LpSolver::Method onward() const { return dual_rounds_ ? LpSolver::Method::kDual : LpSolver::Method::kPrimal; }
 
-  const bool careful_;
+  const bool dual_rounds_;
   const Network& net_;
   FairOptions opt_;
   FlowGraph g_;
@@ -211,8 +214,19 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     if (!undecided.empty()) {
       lp().set_cost(level, 0.0);
       lp().set_column_bounds(level, t, t);
+      // Each test maximises sum_k min(r_k, cap_k), r_k the growth above the level: capped
+      // growth spreads the gain, so one test finds most demands that can grow, where the
+      // plain sum of shares lets a few take all of it. The rule is unchanged: a demand that
+      // grows in the optimum can grow; if none does, none can.
+      auto stop_testing = [&](int k) {
+        lp().set_cost(master_.growth_column(k), 0.0);
+        lp().set_column_bounds(master_.growth_column(k), 0.0, 0.0);
+      };
       while (!undecided.empty()) {
-        for (int k : undecided) lp().set_cost(master_.share_column(k), -1.0);
+        for (int k : undecided) {
+          lp().set_cost(master_.growth_column(k), -1.0);
+          lp().set_column_bounds(master_.growth_column(k), 0.0, kGrowthCap * demand_tol_[k].epsilon());
+        }
         ++r.stats.saturation_tests;
         // Only costs changed (and t was fixed where it stands): the last solution is still
         // feasible, and the primal simplex goes on from it.
@@ -222,7 +236,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
         for (int k : undecided) {
           if (demand_tol_[k].greater(lp().value(master_.share_column(k)), specs_[k].weight * t)) {
             any_grew = true;
-            lp().set_cost(master_.share_column(k), 0.0);
+            stop_testing(k);
           } else {
             still.push_back(k);
           }
@@ -238,7 +252,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
             tier.binding_prices.push_back(-lp().row_dual(row));
           }
           freeze.insert(freeze.end(), still.begin(), still.end());
-          for (int k : still) lp().set_cost(master_.share_column(k), 0.0);
+          for (int k : still) stop_testing(k);
           break;
         }
         undecided = still;
@@ -608,8 +622,8 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   // Solved in an internal unit (unit_scale.h), checked in the file's own.
   const double scale = unit_scale(net);
   const Network scaled = scaled_network(net, scale);
-  auto attempt = [&](bool careful) {
-    MultiflowResult r = Engine(scaled, options, careful).run();
+  auto attempt = [&](bool dual_rounds) {
+    MultiflowResult r = Engine(scaled, options, dual_rounds).run();
     if (r.status == SolveStatus::kOptimal) {
       unscale_result(r, scale);
       r.check = check_multiflow(net, r);
@@ -623,11 +637,11 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   // The primal simplex after each round is several times faster, but leaves its solutions
   // within the LP solver's absolute tolerances rather than on the bounds; where data span
   // many orders of magnitude that can fail the check on the smallest arcs. Those networks
-  // are solved again the careful way, and only its verdict stands. (Only the max-min rounds
+  // are solved again with dual_rounds, and only that verdict stands. (Only the max-min rounds
   // differ between the two ways.)
-  MultiflowResult r = attempt(false);
+  MultiflowResult r = attempt(options.dual_rounds);
   const bool rounds = options.objective == FairObjective::kMaxMinFair || options.objective == FairObjective::kTradeoff;
-  if (r.status == SolveStatus::kNumericalDifficulty && rounds) {
+  if (r.status == SolveStatus::kNumericalDifficulty && rounds && !options.dual_rounds) {
     const MultiflowStats first = r.stats;
     r = attempt(true);
     r.stats.lp_solves += first.lp_solves;

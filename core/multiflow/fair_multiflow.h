@@ -10,11 +10,14 @@
 //   2. freeze the demands whose amount caps t (a_k / w_k = t*), and those whose constraint
 //      f_k >= w_k t has a positive dual: complementary slackness makes it tight in every
 //      optimal solution, so they cannot grow at level t*;
-//   3. settle the rest exactly: with t fixed at t*, maximise the sum of their shares. Any
-//      demand above w_k t* in that optimum can grow: it stays unfrozen. If none is above,
-//      none can grow (a solution raising one of them would raise the sum), and all freeze.
-//      Repeat with the ones not yet decided. One LP decides many demands at once, where the
-//      textbook method runs one LP per demand.
+//   3. settle the rest exactly: with t fixed at t*, maximise the sum of their growths
+//      r_k = f_k - w_k t*, each capped at a small amount c_k. Any demand above w_k t* in
+//      that optimum can grow: it stays unfrozen. If none is above, none can grow (a
+//      solution raising one of them would raise the sum), and all freeze. Repeat with the
+//      ones not yet decided. The caps spread the gain: the demands that can each grow
+//      alone can all grow together (the average of their solutions is feasible), so with
+//      caps small enough one LP finds them all; larger caps only cost another test. One LP
+//      decides many demands at once, where the textbook method runs one LP per demand.
 // Every LP restarts from the previous basis. A round freezes at least one demand, so there
 // are at most K rounds.
 #pragma once

@@ -56,6 +56,10 @@ struct FairOptions {
   double epsilon = 0.1;     // kTradeoff: each demand keeps at least (1 - epsilon) of its fair share
   bool compare_throughput = true;  // kMaxMinFair: also solve max throughput for the price of fairness
   bool hot_start = true;    // false only to measure what restarting from the last basis saves
+  // true: every max-min round and saturation test by the dual simplex, the method before the
+  // primal one was measured faster; kept to measure against, and as the fallback (see
+  // solve_multiflow)
+  bool dual_rounds = false;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 

@@ -38,6 +38,7 @@ PathMaster::PathMaster(const FlowGraph& g, const std::vector<DemandSpec>& demand
     share_col_.push_back(lp_.add_column(0.0, 0.0, d.amount));
     flow_row_.push_back(lp_.add_row(0.0, 0.0, {share_col_[k]}, {-1.0}));
     level_row_.push_back(lp_.add_row(-LpSolver::kInf, LpSolver::kInf, {share_col_[k], level_col_}, {1.0, -d.weight}));
+    growth_col_.push_back(lp_.add_column(0.0, 0.0, 0.0, {level_row_[k]}, {-1.0}));
     demands_by_origin_[d.origin].push_back(k);
   }
   // Starting columns: the k shortest paths (fixed set), or one fewest-arcs path.

@@ -3,10 +3,11 @@
 // Model (minimisation, as LpSolver states it):
 //   columns  x_p >= 0 for each path p of demand k(p) (cost: its route length when routing
 //            is being tidied, else 0); f_k, the share of demand k; t, a level used by the
-//            fairness and concurrency objectives
+//            fairness and concurrency objectives; r_k >= 0, the growth of demand k above
+//            its level, fixed at 0 except in the saturation tests of the max-min rounds
 //   rows     capacity(e):  sum of x_p over paths using arc e (either lane)   <= u(e)
 //            flow(k):      sum of x_p over paths of k  -  f_k                  = 0
-//            level(k):     f_k  -  g_k t                                      >= 0 when active
+//            level(k):     f_k  -  w_k t  -  r_k                              >= 0 when active
 // Pricing (Dantzig-Wolfe column generation; Ahuja, Magnanti, Orlin, "Network Flows", 1993,
 // ch. 17): a new path p for demand k improves the LP exactly when its length under
 //   len(e) = -dual(capacity(e)) (+ route length of e when tidying)
@@ -47,6 +48,7 @@ class PathMaster {
   int share_column(int k) const { return share_col_[k]; }
   int level_column() const { return level_col_; }
   int level_row(int k) const { return level_row_[k]; }
+  int growth_column(int k) const { return growth_col_[k]; }
   int capacity_row(int arc) const { return cap_row_[arc]; }  // -1 for an unusable arc
   bool reachable(int k) const { return reachable_[k]; }      // some path exists (within limits)
 
@@ -73,7 +75,7 @@ class PathMaster {
   std::vector<double> route_length_;
   PathPricer pricer_;
   LpSolver lp_;
-  std::vector<int> share_col_, level_row_, flow_row_, cap_row_;
+  std::vector<int> share_col_, level_row_, growth_col_, flow_row_, cap_row_;
   std::vector<char> reachable_;
   int level_col_ = -1;
   bool route_costs_ = false;

@@ -1,24 +1,48 @@
 // apportion-fair-bench: times Apportion's exact weighted max-min fairness on network files,
 // natively and in WebAssembly under node (the same core, the same files). Prints one line
-// per file: "<file> <milliseconds> <lp solves> <simplex iterations> <iterations without hot
-// start> <shares...>" for
-// shell/bench/fair_benchmark.py, which compares with the textbook baseline.
+// per file:
+//   <file> <milliseconds> <lp solves> <simplex iterations> <iterations without hot start>
+//   <tiers> <shares...>
+// for shell/bench/fair_benchmark.py. Options:
+//   --warm-up      one untimed solve first (node compiles WebAssembly in a baseline tier
+//                  before its optimising tier; the first run would time the compiler)
+//   --cold         also solve with every LP from scratch (else that field is -1)
+//   --dual-rounds  time the previous method (FairOptions::dual_rounds), the baseline
 //
-// usage: apportion-fair-bench FILE...
+// usage: apportion-fair-bench [--warm-up] [--cold] [--dual-rounds] FILE...
 #include <chrono>
 #include <cstdio>
+#include <cstring>
 #include <fstream>
 #include <sstream>
 
 #include "apportion/formats/network_json.h"
 #include "apportion/multiflow/fair_multiflow.h"
 
+namespace {
+
+double timed_solve(const apportion::Network& net, const apportion::FairOptions& opt, apportion::MultiflowResult& r) {
+  const auto start = std::chrono::steady_clock::now();
+  r = apportion::solve_multiflow(net, opt);
+  return std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count();
+}
+
+}  // namespace
+
 int main(int argc, char** argv) {
-  if (argc < 2) {
-    std::fprintf(stderr, "usage: apportion-fair-bench FILE...\n");
+  bool warm_up = false, cold = false, dual_rounds = false;
+  int first = 1;
+  for (; first < argc && std::strncmp(argv[first], "--", 2) == 0; ++first) {
+    if (std::strcmp(argv[first], "--warm-up") == 0) warm_up = true;
+    else if (std::strcmp(argv[first], "--cold") == 0) cold = true;
+    else if (std::strcmp(argv[first], "--dual-rounds") == 0) dual_rounds = true;
+    else return std::fprintf(stderr, "unknown option %s\n", argv[first]), 2;
+  }
+  if (first >= argc) {
+    std::fprintf(stderr, "usage: apportion-fair-bench [--warm-up] [--cold] [--dual-rounds] FILE...\n");
     return 2;
   }
-  for (int i = 1; i < argc; ++i) {
+  for (int i = first; i < argc; ++i) {
     std::ifstream in(argv[i]);
     std::stringstream ss;
     ss << in.rdbuf();
@@ -29,21 +53,24 @@ int main(int argc, char** argv) {
     }
     apportion::FairOptions opt;
     opt.compare_throughput = false;
-    // One untimed solve first: node compiles WebAssembly in a baseline tier before its
-    // optimising tier, and the first run would time the compiler, not the engine.
-    apportion::solve_multiflow(*loaded.network, opt);
-    const auto start = std::chrono::steady_clock::now();
-    const apportion::MultiflowResult r = apportion::solve_multiflow(*loaded.network, opt);
-    const double ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count();
+    opt.dual_rounds = dual_rounds;
+    apportion::MultiflowResult r;
+    if (warm_up) timed_solve(*loaded.network, opt, r);
+    const double ms = timed_solve(*loaded.network, opt, r);
     if (r.status != apportion::SolveStatus::kOptimal) {
       std::fprintf(stderr, "%s: %s\n", argv[i], r.message.c_str());
       return 1;
     }
-    // The same solve again, every LP from scratch: what the hot start saves.
-    opt.hot_start = false;
-    const apportion::MultiflowResult cold = apportion::solve_multiflow(*loaded.network, opt);
-    std::printf("%s %.3f %d %lld %lld", argv[i], ms, r.stats.lp_solves, r.stats.simplex_iterations,
-                cold.stats.simplex_iterations);
+    long long cold_iterations = -1;
+    if (cold) {  // every LP from scratch: what the hot start saves
+      apportion::FairOptions o = opt;
+      o.hot_start = false;
+      apportion::MultiflowResult other;
+      timed_solve(*loaded.network, o, other);
+      cold_iterations = other.stats.simplex_iterations;
+    }
+    std::printf("%s %.3f %d %lld %lld %zu", argv[i], ms, r.stats.lp_solves, r.stats.simplex_iterations,
+                cold_iterations, r.tiers.size());
     for (const auto& d : r.demands) std::printf(" %.17g", d.share);
     std::printf("\n");
     std::fflush(stdout);

@@ -12,6 +12,15 @@ Baseline: the arc formulation solved by SciPy's HiGHS, one LP per round plus one
 unfrozen demand to test it (tests/reference/crosscheck_fair.py, ArcModel.max_min), in a
 child process with a time budget. Apportion: `apportion-fair-bench` natively and in
 WebAssembly under node. Prints a Markdown table.
+
+With --topologies DIR (the shared data folder's topology-zoo/, read in place, never copied):
+real backbones of the Internet Topology Zoo (S. Knight et al., IEEE JSAC 29(9), 2011), each
+link two arcs, capacity from the file's LinkSpeedRaw in bit/s (1 Gbit/s where missing) for
+Geant2012 and Uninett2010 and 10 per link for the others; demands: the K ordered pairs with
+the largest gravity m_i m_j (masses uniform in [1, 10], fixed seed; common practice, no
+source), amounts summing to a third of the total capacity. Per row: Apportion natively and
+in WebAssembly (peak memory of each process), the previous method (dual simplex after every
+round, FairOptions::dual_rounds) as the baseline, each in a child with the time budget.
 """
 import argparse
 import json
@@ -68,7 +77,94 @@ def baseline_child(path):
 
 def run_apportion(cmd, path):
     out = subprocess.run(cmd + [path], capture_output=True, text=True, check=True).stdout.split()
-    return float(out[1]), (int(out[2]), int(out[3]), int(out[4])), [float(x) for x in out[5:]]
+    return float(out[1]), (int(out[2]), int(out[3]), int(out[4])), [float(x) for x in out[6:]]
+
+
+def run_measured(cmd, budget):
+    """Runs an apportion-fair-bench command within `budget` seconds: (fields, peak resident
+    memory of that process in MB), or (None, why not)."""
+    with tempfile.TemporaryFile("w+") as out, tempfile.TemporaryFile("w+") as err:
+        p = subprocess.Popen(cmd, stdout=out, stderr=err, text=True)
+        deadline = time.time() + budget
+        while True:
+            pid, status, usage = os.wait4(p.pid, os.WNOHANG)  # this child's own rusage
+            if pid:
+                break
+            if time.time() > deadline:
+                p.kill()
+                os.wait4(p.pid, 0)
+                return None, f"> {budget:.0f} s"
+            time.sleep(0.02)
+        out.seek(0)
+        err.seek(0)
+        if os.waitstatus_to_exitcode(status) != 0:
+            lines = err.read().strip().splitlines() or ["failed"]
+            return None, lines[0].split(": ", 1)[-1][:60]
+        return out.read().split(), usage.ru_maxrss / 1024.0
+
+
+def topology_instance(cli, graphml, demands, seed, path):
+    """The benchmark's instance on a real topology; returns the network as a dict."""
+    name = os.path.basename(graphml)[:-len(".graphml")]
+    speeds = name in ("Geant2012", "Uninett2010")
+    capacity = ["--capacity-attribute", "LinkSpeedRaw", "--default-capacity", "1e9"] if speeds else \
+        ["--default-capacity", "10"]
+    subprocess.run([cli, "convert", graphml, "--to", "json", path, "--undirected", "pairs"] + capacity,
+                   check=True, capture_output=True)
+    net = json.load(open(path))
+    rng = random.Random(seed)
+    ids = [v["id"] for v in net["nodes"]]
+    mass = {v: rng.uniform(1, 10) for v in ids}
+    pairs = sorted(((mass[i] * mass[j], i, j) for i in ids for j in ids if i != j), reverse=True)
+    pairs = pairs[:demands] if demands else pairs
+    total_cap = sum(a["capacity"] for a in net["arcs"])
+    g = sum(p[0] for p in pairs)
+    net["demands"] = [{"id": f"d{k}", "origin": i, "destination": j, "amount": 2 * total_cap / 6 * m / g}
+                      for k, (m, i, j) in enumerate(pairs)]
+    net["name"] = f"{name}, {len(pairs)} gravity demands"
+    json.dump(net, open(path, "w"))
+    return net
+
+
+def topologies(a, work):
+    cli = os.path.join(os.path.dirname(a.native), "apportion")
+    sizes = [500] + ([5000, 0] if a.large else [])  # 0: all ordered pairs
+    print("| topology | nodes | arcs | demands | tiers | Apportion ms | LP solves | simplex iterations | "
+          "peak MB | previous method ms | speed-up | WASM ms | WASM/native | WASM peak MB | WASM vs native |")
+    print("|---|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
+    for name in ("Abilene", "Geant2012", "Uninett2010", "Deltacom", "GtsCe", "UsCarrier"):
+        graphml = os.path.join(a.topologies, name + ".graphml")
+        if not os.path.exists(graphml):
+            print(f"| {name} | missing: {graphml} |")
+            continue
+        done = set()
+        for k in sizes:
+            path = os.path.join(work, f"{name}-{k}.json")
+            net = topology_instance(cli, graphml, k, 1, path)
+            n_dem = len(net["demands"])
+            if n_dem in done:
+                continue  # fewer pairs than asked: this size is all pairs, already measured
+            done.add(n_dem)
+            fields, mem = run_measured([a.native, path], a.budget)
+            if fields is None:
+                print(f"| {name} | {len(net['nodes'])} | {len(net['arcs'])} | {n_dem} | - | {mem} | | | | | | | | | |",
+                      flush=True)
+                continue
+            ms, lps, iters, tiers = float(fields[1]), fields[2], fields[3], fields[5]
+            shares = [float(x) for x in fields[6:]]
+            base, _ = run_measured([a.native, "--dual-rounds", path], a.budget)
+            base_ms = f"{float(base[1]):.0f}" if base else f"> {a.budget * 1000:.0f}"
+            speed = f"{float(base[1]) / ms:.1f}x" if base else f"> {a.budget * 1000 / ms:.0f}x"
+            wasm, wmem = run_measured(["node", a.wasm, "--warm-up", path], a.budget)
+            if wasm:
+                wms = float(wasm[1])
+                scale = max(x["capacity"] for x in net["arcs"])
+                wdiff = max(abs(x - float(y)) for x, y in zip(shares, wasm[6:])) / scale
+                wasm_cells = f"{wms:.0f} | {wms / ms:.2f} | {wmem:.0f} | {wdiff:.1e}"
+            else:
+                wasm_cells = f"{wmem} | | | "
+            print(f"| {name} | {len(net['nodes'])} | {len(net['arcs'])} | {n_dem} | {tiers} | {ms:.0f} | {lps} | {iters} | "
+                  f"{mem:.0f} | {base_ms} | {speed} | {wasm_cells} |", flush=True)
 
 
 def main():
@@ -78,10 +174,13 @@ def main():
     ap.add_argument("--budget", type=float, default=300, help="seconds for each baseline run")
     ap.add_argument("--quick", action="store_true", help="the smallest size only")
     ap.add_argument("--large", action="store_true", help="also 1,000, 2,000 and 5,000 demands (slow: tens of minutes)")
+    ap.add_argument("--topologies", help="the shared data folder's topology-zoo/: benchmark the real backbones")
     ap.add_argument("--baseline-child")
     a = ap.parse_args()
     if a.baseline_child:
         return baseline_child(a.baseline_child)
+    if a.topologies:
+        return topologies(a, tempfile.mkdtemp(prefix="apportion-fair-bench-"))
     sizes = [(50, 2, 100), (100, 2, 300)]
     if a.large:
         sizes += [(100, 3, 1000), (200, 2, 2000), (200, 2, 5000)]
@@ -94,8 +193,8 @@ def main():
         inst = instance(n, deg, k, seed=n * 7919 + k)
         path = os.path.join(work, f"g{n}-{k}.json")
         json.dump(inst, open(path, "w"))
-        ms, solves, shares = run_apportion([a.native], path)
-        wasm_ms, _, wasm_shares = run_apportion(["node", a.wasm], path)
+        ms, solves, shares = run_apportion([a.native, "--cold"], path)
+        wasm_ms, _, wasm_shares = run_apportion(["node", a.wasm, "--warm-up"], path)
         fair = subprocess.run([os.path.join(os.path.dirname(a.native), "apportion"), "fair", path, "--json",
                                path + ".out"], capture_output=True, text=True)
         tiers = len(json.load(open(path + ".out"))["tiers"]) if fair.returncode == 0 else "?"
