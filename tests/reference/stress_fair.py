@@ -19,9 +19,10 @@ For each instance `apportion fair` must either report status optimal and
   - the independent checker satisfied: every arc's excess at most 1e-6 of its capacity, every
     demand's imbalance at most 1e-6 of its share (the documented tolerance; both floored at
     the smallest positive capacity);
-or fail with the status "numerical difficulty" and a message. Where SciPy's own LPs fail
-(the arc formulation without Apportion's scaling), an optimal result is counted apart and
-judged by the checker and the WebAssembly comparison alone. Determinism: every instance is
+or fail with the status "numerical difficulty" and a message. Where SciPy's own LPs fail,
+SciPy is asked again with the data divided by Apportion's power-of-two unit; if that fails
+too, an optimal result is counted apart and judged by the checker and the WebAssembly
+comparison alone. Determinism: every instance is
 solved twice and the result files must be byte-identical. With --wasm, the same command in
 WebAssembly under node must give the same status and a byte-identical result file (tiers and
 shares are also compared, to 1e-9 of the share's scale, to say what differs).
@@ -190,6 +191,27 @@ FAMILIES = [("span-6", span_6, 12), ("span-9", span_9, 12), ("wide-range", wide_
             ("disconnected", disconnected, 10), ("ties", ties, 8)]
 
 
+def power_of_two_unit(caps):
+    """The internal unit of core/multiflow/unit_scale.h: the smallest positive capacity into
+    [1, 2), unless the largest would then pass 2^30."""
+    positive = [c for c in caps if c > 0]
+    if not positive:
+        return 1.0
+    low, high = math.frexp(min(positive))[1], math.frexp(max(positive))[1]
+    return math.ldexp(1.0, max(low - 1, high - 30))
+
+
+def scaled(inst, factor):
+    """The instance with every capacity and amount divided by `factor`."""
+    out = json.loads(json.dumps(inst))
+    for a in out["arcs"]:
+        a["capacity"] = a["capacity"] / factor
+    for d in out["demands"]:
+        if d.get("amount", "max") != "max":
+            d["amount"] = d["amount"] / factor
+    return out
+
+
 def scale_of(value, smallest):
     return max(abs(value), smallest)
 
@@ -218,11 +240,19 @@ def check(job):
         try:
             ref, rounds = model.max_min()
         except RuntimeError as e:
-            # The reference's own LPs (arc formulation, no scaling of ours) can fail where
-            # Apportion's scaled path formulation solves: then the independent checker and
-            # the native/WebAssembly comparison are what stands.
-            outcome = "reference failed"
-            notes["reference_error"] = str(e)
+            # The reference's own LPs (arc formulation, unscaled) can fail where Apportion's
+            # scaled path formulation solves. Then SciPy is asked again with the data divided
+            # by a power of two (the rule of core/multiflow/unit_scale.h: exact, so the
+            # shares scale back exactly); if that fails too, the independent checker and the
+            # native/WebAssembly comparison are what stands.
+            factor = power_of_two_unit(model.caps)
+            try:
+                ref, rounds = ArcModel(scaled(inst, factor), relative=True).max_min()
+                ref = [x * factor for x in ref]
+                notes["reference_scaled"] = factor
+            except RuntimeError as e2:
+                outcome = "reference failed"
+                notes["reference_error"] = str(e2)
     if ref is not None:
         worst = 0.0
         for k, d in enumerate(first["demands"]):
@@ -284,6 +314,9 @@ def main():
             s["wasm_identical"] += 1 if notes.get("wasm_identical") else 0
             if outcome == "numerical difficulty":
                 print(f"{name}: numerical difficulty reported", flush=True)
+            if "reference_scaled" in notes:
+                print(f"{name}: SciPy solved it only with the data divided by {notes['reference_scaled']:g}",
+                      flush=True)
             if outcome == "reference failed":
                 print(f"{name}: optimal and checked; the reference failed ({notes['reference_error']})", flush=True)
             if problems:
