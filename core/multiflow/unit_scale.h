@@ -8,7 +8,7 @@
 // s, chosen from the ratios of the data alone, so that the answer does not depend on the
 // unit. The smallest positive capacity goes into [1, 2), well above the tolerances, unless
 // the largest would then pass 2^30 (about 1e9, the largest value the engine's numerical
-// stress suite solves reliably); then the largest goes into (2^29, 2^30], and the smallest
+// stress suite solves reliably); then the largest goes into [2^29, 2^30), and the smallest
 // is as far below 1 as the span demands. Dividing by a power of two is exact in binary
 // floating point, so the scaled network holds the same mantissas, and scaling back is exact.
 //
