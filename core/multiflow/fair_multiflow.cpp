@@ -42,11 +42,8 @@ constexpr double kGrowthCap = 1e6;
 // Everything one solve needs: the graph, the demands and the master LP.
 class Engine {
  public:
-  // `dual_rounds`: every max-min round and saturation test by the dual simplex (see
-  // solve_multiflow): slower, but its solutions lie on their bounds.
-  Engine(const Network& net, const FairOptions& opt, bool dual_rounds)
-      : dual_rounds_(dual_rounds),
-        net_(net),
+  Engine(const Network& net, const FairOptions& opt)
+      : net_(net),
         opt_(opt),
         g_(FlowGraph::from_network(net)),
         specs_(make_specs(net)),
@@ -103,10 +100,10 @@ class Engine {
   void feasibility_certificate(MultiflowResult& r);
   void totals(MultiflowResult& r);
 
-  // The method for a solve after changes that keep the last solution feasible.
-  LpSolver::Method onward() const { return dual_rounds_ ? LpSolver::Method::kDual : LpSolver::Method::kPrimal; }
+  // The method for a solve after changes that keep the last solution feasible (see
+  // FairOptions::dual_rounds: the dual simplex is slower, but its solutions lie on their bounds).
+  LpSolver::Method onward() const { return opt_.dual_rounds ? LpSolver::Method::kDual : LpSolver::Method::kPrimal; }
 
-  const bool dual_rounds_;
   const Network& net_;
   FairOptions opt_;
   FlowGraph g_;
@@ -622,8 +619,8 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   // Solved in an internal unit (unit_scale.h), checked in the file's own.
   const double scale = unit_scale(net);
   const Network scaled = scaled_network(net, scale);
-  auto attempt = [&](bool dual_rounds) {
-    MultiflowResult r = Engine(scaled, options, dual_rounds).run();
+  auto attempt = [&](const FairOptions& opt) {
+    MultiflowResult r = Engine(scaled, opt).run();
     if (r.status == SolveStatus::kOptimal) {
       unscale_result(r, scale);
       r.check = check_multiflow(net, r);
@@ -639,11 +636,13 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   // many orders of magnitude that can fail the check on the smallest arcs. Those networks
   // are solved again with dual_rounds, and only that verdict stands. (Only the max-min rounds
   // differ between the two ways.)
-  MultiflowResult r = attempt(options.dual_rounds);
+  MultiflowResult r = attempt(options);
   const bool rounds = options.objective == FairObjective::kMaxMinFair || options.objective == FairObjective::kTradeoff;
   if (r.status == SolveStatus::kNumericalDifficulty && rounds && !options.dual_rounds) {
     const MultiflowStats first = r.stats;
-    r = attempt(true);
+    FairOptions careful = options;
+    careful.dual_rounds = true;
+    r = attempt(careful);
     r.stats.lp_solves += first.lp_solves;
     r.stats.simplex_iterations += first.simplex_iterations;
     r.stats.pricing_rounds += first.pricing_rounds;

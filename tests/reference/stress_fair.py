@@ -22,10 +22,10 @@ For each instance `apportion fair` must either report status optimal and
 or fail with the status "numerical difficulty" and a message. Where SciPy's own LPs fail,
 SciPy is asked again with the data divided by Apportion's power-of-two unit; if that fails
 too, an optimal result is counted apart and judged by the checker and the WebAssembly
-comparison alone. Determinism: every instance is
-solved twice and the result files must be byte-identical. With --wasm, the same command in
-WebAssembly under node must give the same status and a byte-identical result file (tiers and
-shares are also compared, to 1e-9 of the share's scale, to say what differs).
+comparison alone. Determinism: every instance is solved twice and the result files must be
+byte-identical. With --wasm, the same command in WebAssembly under node must give the same
+status and a byte-identical result file (tiers and shares are also compared, to 1e-9 of the
+share's scale, to say what differs).
 With --no-reference, SciPy is skipped (the WebAssembly build's test: native against
 WebAssembly and the checker). Exit status 0 when every instance passes.
 """
@@ -239,7 +239,7 @@ def check(job):
     if reference:
         try:
             ref, rounds = model.max_min()
-        except RuntimeError as e:
+        except RuntimeError:
             # The reference's own LPs (arc formulation, unscaled) can fail where Apportion's
             # scaled path formulation solves. Then SciPy is asked again with the data divided
             # by a power of two (the rule of core/multiflow/unit_scale.h: exact, so the
