@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <queue>
 
 #include "apportion/flow/flow_graph.h"
@@ -92,9 +93,14 @@ class Engine {
   }
 
   bool max_min(MultiflowResult& r, std::vector<double>& fair);
+  bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
+               bool& yes, MultiflowResult& r);
+  bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
+                      const std::vector<int>& at_amount, const std::vector<int>& open, double t, double& no_search_from,
+                      bool& settled);
   bool max_throughput(MultiflowResult& r, bool finite_only, double& value);
   bool max_concurrent(MultiflowResult& r, double& lambda);
-  bool tidy_routes(MultiflowResult& r);
+  bool tidy_routes(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual);
   void collect(MultiflowResult& r, const std::vector<double>* fixed_shares);
   void explain_tiers(MultiflowResult& r);
   void feasibility_certificate(MultiflowResult& r);
@@ -165,6 +171,9 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
   }
   const int level = master_.level_column();
   progress_.stage = "max-min fair";
+  // Amount levels at or above this one were tested and not reached since the last freeze at
+  // a bottleneck (settle_amounts); freezing demands at their amounts does not change that.
+  double no_search_from = kInf;
   for (int round = 1;; ++round) {
     progress_.round = round;
     std::vector<int> open;
@@ -206,6 +215,15 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
       } else {
         undecided.push_back(k);
       }
+    }
+    // A round stopped by amounts alone: settle a run of amount levels at once (step 2a of
+    // fair_multiflow.h) instead of one round, and one sum test, per amount.
+    auto by_amount = [&](int k) { return r.demands[k].limited_by_amount; };
+    const bool by_amount_only = std::all_of(freeze.begin(), freeze.end(), by_amount);
+    if (opt_.amount_search && unreachable.empty() && !freeze.empty() && by_amount_only && !undecided.empty()) {
+      bool settled = false;
+      if (!settle_amounts(r, fair, frozen, freeze, undecided, t, no_search_from, settled)) return false;
+      if (settled) continue;
     }
     // Zero duals prove nothing: settle these demands by the sum test (fair_multiflow.h).
     if (!undecided.empty()) {
@@ -286,6 +304,8 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
       r.demands[k].tier = tier.index;
     }
     tier.demands = freeze;
+    if (!std::all_of(freeze.begin(), freeze.end(), by_amount))
+      no_search_from = kInf;  // a bottleneck froze demands below levels that failed before
     progress_.demands_settled += static_cast<int>(freeze.size());
     r.tiers.push_back(tier);
     lp().set_column_bounds(level, 0.0, kInf);
@@ -298,6 +318,110 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     r.tiers.push_back(zero);
   }
   lp().set_cost(level, 0.0);
+  return true;
+}
+
+// Whether every open demand k can have min(w_k G, a_k) at once, G = levels[g]: maximise t
+// <= G with f_k >= w_k t + r_k, where the growth column r_k of each demand in a group up to g
+// may go down to a_k - w_k G. At t = G that asks exactly f_k >= a_k of those, and w_k G of the
+// others; below G it asks less than min(w_k t, a_k), so t reaches G if and only if the
+// allocation fits. Only bounds change, and each test keeps the last solution feasible.
+bool Engine::reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels,
+                     int g, bool& yes, MultiflowResult& r) {
+  const double G = levels[g];
+  for (std::size_t i = 0; i < open.size(); ++i) {
+    const int k = open[i];
+    const double slack = group[i] <= g ? std::max(0.0, specs_[k].weight * G - specs_[k].amount) : 0.0;
+    lp().set_column_bounds(master_.growth_column(k), -slack, 0.0);
+  }
+  lp().set_cost(master_.level_column(), -1.0);
+  lp().set_column_bounds(master_.level_column(), 0.0, G);
+  if (!solve(r, onward())) return false;
+  yes = !Tolerance(1e-9 * G).less(lp().value(master_.level_column()), G);
+  return true;
+}
+
+// Step 2a of fair_multiflow.h. The round reached t, the smallest amount level of the open
+// demands, and froze only demands at their amounts (at_amount). If every open demand can have
+// min(w_k G, a_k) at once for an amount level G > t, no bottleneck stops any demand below G,
+// so every demand whose amount level lies below G freezes at its amount, in a tier of its own
+// level, as one round each would have found. Galloping then bisecting over the sorted amount
+// levels finds the highest such G in about 2 log2(n) tests. The demands at G itself are left
+// to the next round, which also finds any bottleneck at exactly G. `settled` is false when
+// not even the next level is reached: then the round goes on as usual.
+bool Engine::settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
+                            const std::vector<int>& at_amount, const std::vector<int>& open, double t,
+                            double& no_search_from, bool& settled) {
+  settled = false;
+  // The amount levels a_k / w_k of the open demands, merged where they are equal at the
+  // demand's own tolerance (as one round would freeze them together).
+  std::vector<std::pair<double, int>> by_level;
+  for (int k : open)
+    if (std::isfinite(specs_[k].amount)) by_level.push_back({specs_[k].amount / specs_[k].weight, k});
+  std::sort(by_level.begin(), by_level.end());
+  std::vector<double> first, levels;  // per group: smallest and largest level
+  std::vector<int> group_of(K(), std::numeric_limits<int>::max());
+  for (const auto& [c, k] : by_level) {
+    if (first.empty() || demand_tol_[k].less(specs_[k].weight * first.back(), specs_[k].amount)) {
+      if (std::isfinite(no_search_from) && !Tolerance(1e-9 * no_search_from).less(c, no_search_from)) break;
+      first.push_back(c), levels.push_back(c);
+    }
+    levels.back() = c;
+    group_of[k] = static_cast<int>(levels.size()) - 1;
+  }
+  if (levels.empty()) return true;
+  // The tests take the round's own demands too, in a group below all others: unfrozen yet,
+  // they would hold t at their amount level.
+  std::vector<int> all = at_amount, group(at_amount.size(), -1);
+  for (int k : open) all.push_back(k), group.push_back(group_of[k]);
+
+  const int n = static_cast<int>(levels.size());
+  int pass = -1, fail = n;
+  bool yes = false;
+  for (int g = 0;;) {  // galloping: 0, 1, 3, 7, ...
+    if (!reaches(all, group, levels, g, yes, r)) return false;
+    if (!yes) {
+      fail = g;
+      break;
+    }
+    pass = g;
+    if (g == n - 1) break;
+    g = std::min(2 * g + 1, n - 1);
+  }
+  while (fail - pass > 1) {
+    const int g = pass + (fail - pass) / 2;
+    if (!reaches(all, group, levels, g, yes, r)) return false;
+    (yes ? pass : fail) = g;
+  }
+  for (int k : all) lp().set_column_bounds(master_.growth_column(k), 0.0, 0.0);
+  if (fail < n) no_search_from = std::min(no_search_from, first[fail]);
+  if (pass < 0) return true;  // the sum test sets its own bounds and costs
+  // Freeze: the round's own demands at t, then one tier per group below the reached one.
+  std::vector<std::vector<int>> tiers(pass + 1);
+  tiers[0] = at_amount;
+  std::vector<double> tier_level(pass + 1, t);
+  for (int g = 0; g < pass; ++g) tier_level[g + 1] = first[g];
+  for (std::size_t i = at_amount.size(); i < all.size(); ++i)
+    if (group[i] < pass) tiers[group[i] + 1].push_back(all[i]);
+  for (int i = 0; i <= pass; ++i) {
+    Tier tier;
+    tier.index = static_cast<int>(r.tiers.size()) + 1;
+    tier.level = tier_level[i];
+    std::sort(tiers[i].begin(), tiers[i].end());
+    for (int k : tiers[i]) {
+      frozen[k] = 1;
+      fair[k] = std::min(specs_[k].amount, specs_[k].weight * tier.level);
+      share_bounds(k, fair[k], fair[k]);
+      lp().set_row_bounds(master_.level_row(k), -kInf, kInf);
+      r.demands[k].tier = tier.index;
+      r.demands[k].limited_by_amount = true;
+    }
+    tier.demands = tiers[i];
+    progress_.demands_settled += static_cast<int>(tiers[i].size());
+    r.tiers.push_back(tier);
+  }
+  lp().set_column_bounds(master_.level_column(), 0.0, kInf);
+  settled = true;
   return true;
 }
 
@@ -342,12 +466,14 @@ bool Engine::max_concurrent(MultiflowResult& r, double& lambda) {
 
 // With the shares fixed where the caller left them, route with the fewest arcs in total:
 // among equally fair routings, the one a planner would draw.
-bool Engine::tidy_routes(MultiflowResult& r) {
+// `first`: the primal simplex where the shares were fixed where the last solution has them
+// (only costs change then), the dual where they moved.
+bool Engine::tidy_routes(MultiflowResult& r, LpSolver::Method first) {
   progress_.stage = "routes";
   lp().set_cost(master_.level_column(), 0.0);
   for (int k = 0; k < K(); ++k) lp().set_cost(master_.share_column(k), 0.0);
   master_.set_route_costs(true);
-  const bool ok = solve(r);
+  const bool ok = solve(r, first);
   master_.set_route_costs(false);
   return ok;
 }
@@ -521,7 +647,7 @@ MultiflowResult Engine::run() {
     case FairObjective::kMaxMinFair: {
       if (!max_min(r, fair)) return r;
       for (int k = 0; k < K(); ++k) share_bounds(k, fair[k], fair[k]);
-      if (!tidy_routes(r)) return r;
+      if (!tidy_routes(r, onward())) return r;
       collect(r, &fair);
       explain_tiers(r);
       if (opt_.compare_throughput) {
@@ -542,7 +668,7 @@ MultiflowResult Engine::run() {
       if (!solve(r)) return r;
       std::vector<double> shares(K());
       for (int k = 0; k < K(); ++k) shares[k] = lp().value(master_.share_column(k)), share_bounds(k, shares[k], shares[k]);
-      if (!tidy_routes(r)) return r;
+      if (!tidy_routes(r, onward())) return r;
       collect(r, &shares);
       explain_tiers(r);
       if (!max_throughput(r, false, value)) return r;
@@ -553,7 +679,7 @@ MultiflowResult Engine::run() {
       if (!max_throughput(r, false, value)) return r;
       std::vector<double> shares(K());
       for (int k = 0; k < K(); ++k) shares[k] = lp().value(master_.share_column(k)), share_bounds(k, shares[k], shares[k]);
-      if (!tidy_routes(r)) return r;
+      if (!tidy_routes(r, onward())) return r;
       collect(r, &shares);
       r.max_throughput = value;
       break;

@@ -10,6 +10,15 @@
 //   2. freeze the demands whose amount caps t (a_k / w_k = t*), and those whose constraint
 //      f_k >= w_k t has a positive dual: complementary slackness makes it tight in every
 //      optimal solution, so they cannot grow at level t*;
+//   2a. a round that stopped at the smallest amount level of the open demands (t* = a_k / w_k)
+//      and froze only demands at their amounts searches for the highest amount level G that
+//      every open demand can reach at once, min(w_k G, a_k) for all; no bottleneck lies
+//      below G, so every demand whose amount level is below G freezes at its amount, in a
+//      tier of its own level, as one round each would have found. Galloping, then bisecting,
+//      over the sorted levels takes about 2 log2(n) feasibility LPs (Engine::reaches) for a
+//      run of n levels, where one round per level takes n rounds and n sum tests. (Lemma:
+//      if every demand can have min(w_k G, a_k) at once, progressive filling meets no
+//      bottleneck below G; Bertsekas and Gallager, section 6.5.2.)
 //   3. settle the rest exactly: with t fixed at t*, maximise the sum of their growths
 //      r_k = f_k - w_k t*, each capped at a small amount c_k. Any demand above w_k t* in
 //      that optimum can grow: it stays unfrozen. If none is above, none can grow (a

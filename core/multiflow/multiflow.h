@@ -60,6 +60,10 @@ struct FairOptions {
   // primal one was measured faster; kept to measure against, and as the fallback (see
   // solve_multiflow)
   bool dual_rounds = false;
+  // true: a round stopped only by the smallest amount searches for the highest amount level
+  // that every demand can reach, and settles all amounts below it at once (fair_multiflow.h);
+  // false: one round per amount, the method before, kept to measure against.
+  bool amount_search = true;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 

@@ -7,9 +7,12 @@
 //   --warm-up      one untimed solve first (node compiles WebAssembly in a baseline tier
 //                  before its optimising tier; the first run would time the compiler)
 //   --cold         also solve with every LP from scratch (else that field is -1)
-//   --dual-rounds  time the previous method (FairOptions::dual_rounds), the baseline
+//   --baseline     time the engine as it was before the scale work, the baseline: the dual
+//                  simplex after every round (FairOptions::dual_rounds) and one round per
+//                  amount level (FairOptions::amount_search off)
+//   --no-amount-search  only the latter
 //
-// usage: apportion-fair-bench [--warm-up] [--cold] [--dual-rounds] FILE...
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] FILE...
 #include <chrono>
 #include <cstdio>
 #include <cstring>
@@ -30,16 +33,18 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 }  // namespace
 
 int main(int argc, char** argv) {
-  bool warm_up = false, cold = false, dual_rounds = false;
+  bool warm_up = false, cold = false, dual_rounds = false, amount_search = true;
   int first = 1;
   for (; first < argc && std::strncmp(argv[first], "--", 2) == 0; ++first) {
     if (std::strcmp(argv[first], "--warm-up") == 0) warm_up = true;
     else if (std::strcmp(argv[first], "--cold") == 0) cold = true;
-    else if (std::strcmp(argv[first], "--dual-rounds") == 0) dual_rounds = true;
+    else if (std::strcmp(argv[first], "--baseline") == 0) dual_rounds = true, amount_search = false;
+    else if (std::strcmp(argv[first], "--no-amount-search") == 0) amount_search = false;
     else return std::fprintf(stderr, "unknown option %s\n", argv[first]), 2;
   }
   if (first >= argc) {
-    std::fprintf(stderr, "usage: apportion-fair-bench [--warm-up] [--cold] [--dual-rounds] FILE...\n");
+    std::fprintf(stderr,
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -54,6 +59,7 @@ int main(int argc, char** argv) {
     apportion::FairOptions opt;
     opt.compare_throughput = false;
     opt.dual_rounds = dual_rounds;
+    opt.amount_search = amount_search;
     apportion::MultiflowResult r;
     if (warm_up) timed_solve(*loaded.network, opt, r);
     const double ms = timed_solve(*loaded.network, opt, r);

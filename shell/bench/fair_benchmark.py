@@ -19,8 +19,10 @@ link two arcs, capacity from the file's LinkSpeedRaw in bit/s (1 Gbit/s where mi
 Geant2012 and Uninett2010 and 10 per link for the others; demands: the K ordered pairs with
 the largest gravity m_i m_j (masses uniform in [1, 10], fixed seed; common practice, no
 source), amounts summing to a third of the total capacity. Per row: Apportion natively and
-in WebAssembly (peak memory of each process), the previous method (dual simplex after every
-round, FairOptions::dual_rounds) as the baseline, each in a child with the time budget.
+in WebAssembly (peak memory of each process), and the engine as it was before the scale work
+(`apportion-fair-bench --baseline`: the dual simplex after every round and one round per
+amount level) as the baseline, each in a child with the time budget; the largest share
+difference against the baseline, relative to the largest share.
 """
 import argparse
 import json
@@ -130,8 +132,8 @@ def topologies(a, work):
     cli = os.path.join(os.path.dirname(a.native), "apportion")
     sizes = [500] + ([5000, 0] if a.large else [])  # 0: all ordered pairs
     print("| topology | nodes | arcs | demands | tiers | Apportion ms | LP solves | simplex iterations | "
-          "peak MB | previous method ms | speed-up | WASM ms | WASM/native | WASM peak MB | WASM vs native |")
-    print("|---|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
+          "peak MB | previous method ms | speed-up | vs previous | WASM ms | WASM/native | WASM peak MB | WASM vs native |")
+    print("|---|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|")
     for name in ("Abilene", "Geant2012", "Uninett2010", "Deltacom", "GtsCe", "UsCarrier"):
         graphml = os.path.join(a.topologies, name + ".graphml")
         if not os.path.exists(graphml):
@@ -147,14 +149,16 @@ def topologies(a, work):
             done.add(n_dem)
             fields, mem = run_measured([a.native, path], a.budget)
             if fields is None:
-                print(f"| {name} | {len(net['nodes'])} | {len(net['arcs'])} | {n_dem} | - | {mem} | | | | | | | | | |",
+                print(f"| {name} | {len(net['nodes'])} | {len(net['arcs'])} | {n_dem} | - | {mem} | | | | | | | | | | |",
                       flush=True)
                 continue
             ms, lps, iters, tiers = float(fields[1]), fields[2], fields[3], fields[5]
             shares = [float(x) for x in fields[6:]]
-            base, _ = run_measured([a.native, "--dual-rounds", path], a.budget)
+            base, _ = run_measured([a.native, "--baseline", path], a.budget)
             base_ms = f"{float(base[1]):.0f}" if base else f"> {a.budget * 1000:.0f}"
             speed = f"{float(base[1]) / ms:.1f}x" if base else f"> {a.budget * 1000 / ms:.0f}x"
+            largest = max(abs(x) for x in shares) or 1.0
+            vs_base = f"{max(abs(x - float(y)) for x, y in zip(shares, base[6:])) / largest:.1e}" if base else "-"
             wasm, wmem = run_measured(["node", a.wasm, "--warm-up", path], a.budget)
             if wasm:
                 wms = float(wasm[1])
@@ -164,7 +168,7 @@ def topologies(a, work):
             else:
                 wasm_cells = f"{wmem} | | | "
             print(f"| {name} | {len(net['nodes'])} | {len(net['arcs'])} | {n_dem} | {tiers} | {ms:.0f} | {lps} | {iters} | "
-                  f"{mem:.0f} | {base_ms} | {speed} | {wasm_cells} |", flush=True)
+                  f"{mem:.0f} | {base_ms} | {speed} | {vs_base} | {wasm_cells} |", flush=True)
 
 
 def main():

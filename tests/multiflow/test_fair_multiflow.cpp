@@ -296,3 +296,59 @@ TEST_CASE("max-min: properties on random networks", "[fair][property]") {
     CHECK(fair(bigger).min_normalised_share >= r.min_normalised_share - 1e-6);
   }
 }
+
+// The amount search (fair_multiflow.h, step 2a) must give what one round per amount level
+// gives: the same shares, the same tiers at the same levels. Instances with many demands
+// limited by their amounts, and integer data so that amount levels often coincide with
+// bottleneck levels.
+TEST_CASE("max-min: the amount search settles runs of amounts as one round each would", "[fair][property]") {
+  std::mt19937_64 rng(1618);
+  int batched = 0;
+  for (int i = 0; i < 30; ++i) {
+    const int nodes = 4 + static_cast<int>(rng() % 5);
+    Network net = random_network(rng, nodes, nodes + 4 + static_cast<int>(rng() % 8), 8 + static_cast<int>(rng() % 16));
+    for (Demand& d : net.demands)
+      if (rng() % 5 != 0) d.amount = 0.25 * static_cast<double>(1 + rng() % 12);
+    FairOptions on, off;
+    off.amount_search = false;
+    const MultiflowResult a = solve_multiflow(net, on), b = solve_multiflow(net, off);
+    INFO("instance " << i);
+    REQUIRE(a.status == SolveStatus::kOptimal);
+    REQUIRE(b.status == SolveStatus::kOptimal);
+    REQUIRE(a.check.ok);
+    for (std::size_t k = 0; k < net.demands.size(); ++k) {
+      CHECK_THAT(a.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
+      CHECK(a.demands[k].tier == b.demands[k].tier);
+      CHECK(a.demands[k].limited_by_amount == b.demands[k].limited_by_amount);
+    }
+    REQUIRE(a.tiers.size() == b.tiers.size());
+    for (std::size_t t = 0; t < a.tiers.size(); ++t) {
+      CHECK_THAT(a.tiers[t].level, WithinAbs(b.tiers[t].level, 1e-7));
+      CHECK(a.tiers[t].demands == b.tiers[t].demands);
+    }
+    batched += a.stats.lp_solves < b.stats.lp_solves;
+  }
+  // The search has to have settled runs of amounts in some of them, or this tested nothing.
+  CHECK(batched >= 5);
+}
+
+TEST_CASE("max-min: a run of amount levels is settled in a few LPs", "[fair]") {
+  // Twelve demands across one arc of capacity 100, amounts 1..12 (hand-derived: all fit,
+  // 78 in all, so each demand gets its amount, in a tier of its own at its own level).
+  Builder b(2);
+  b.arc(0, 1, 100);
+  for (int k = 1; k <= 12; ++k) b.demand(0, 1, k);
+  FairOptions on, off;
+  off.amount_search = false;
+  const MultiflowResult a = solve_multiflow(b.net, on), one_by_one = solve_multiflow(b.net, off);
+  REQUIRE(a.status == SolveStatus::kOptimal);
+  REQUIRE(a.check.ok);
+  REQUIRE(a.tiers.size() == 12);
+  for (int k = 0; k < 12; ++k) {
+    CHECK_THAT(a.demands[k].share, WithinAbs(k + 1.0, 1e-9));
+    CHECK(a.demands[k].limited_by_amount);
+    CHECK(a.demands[k].tier == k + 1);
+    CHECK_THAT(a.tiers[k].level, WithinAbs(k + 1.0, 1e-9));
+  }
+  CHECK(a.stats.lp_solves < one_by_one.stats.lp_solves);
+}
