@@ -1,7 +1,12 @@
 // `apportion fair|throughput|concurrent|feasible|tradeoff`: the fair-multiflow objectives.
+#include <chrono>
 #include <cmath>
+#include <cstdio>
 #include <iostream>
 #include <sstream>
+#ifndef __EMSCRIPTEN__
+#include <unistd.h>
+#endif
 
 #include "apportion/model/number_text.h"
 #include "apportion/multiflow/fair_multiflow.h"
@@ -39,6 +44,8 @@ Options:
   --all-arcs       list arcs without load too
   --json OUT       the whole result as JSON (core/FORMAT.md)
   --csv PREFIX     PREFIX.demands.csv, PREFIX.arcs.csv, PREFIX.paths.csv
+  --progress       report the solve's progress on standard error (stage, round, demands
+                   settled, LPs, time); shown anyway when standard error is a terminal
   (and the reading options of 'apportion validate --help')
 
 Every result is verified by an independent checker before it is printed.
@@ -81,13 +88,61 @@ std::optional<int> positive_int(const Args& args, const char* name, std::string&
   return static_cast<int>(*x);
 }
 
+// Progress on standard error: on a terminal one line rewritten in place, else a line every
+// 10 s, so that a solve of many minutes shows it is alive and how far it got.
+class ProgressLine {
+ public:
+  ProgressLine(std::string cmd, bool wanted) : cmd_(std::move(cmd)) {
+#ifndef __EMSCRIPTEN__
+    terminal_ = isatty(2) != 0;
+#endif
+    on_ = wanted || terminal_;
+  }
+  ~ProgressLine() {
+    if (shown_ && terminal_) std::fprintf(stderr, "\r%*s\r", static_cast<int>(width_), "");
+    if (on_ && !terminal_)
+      std::fprintf(stderr, "apportion %s: solved in %.1f s, %d LPs\n", cmd_.c_str(), seconds(), lp_solves_);
+  }
+  bool on() const { return on_; }
+  void report(const SolveProgress& p) {
+    lp_solves_ = p.lp_solves;
+    const double now = seconds();
+    if (now - last_ < (terminal_ ? 0.5 : 10.0)) return;
+    last_ = now;
+    std::string line = "apportion " + cmd_ + ": " + p.stage;
+    if (p.round > 0 && p.demands_settled < p.demands)  // the max-min rounds
+      line += ", round " + std::to_string(p.round) + ", " + std::to_string(p.demands_settled) + " of " +
+              std::to_string(p.demands) + " demands settled";
+    line += ", " + std::to_string(p.lp_solves) + " LPs, " + std::to_string(static_cast<long>(now)) + " s";
+    if (terminal_) {
+      std::fprintf(stderr, "\r%-*s", static_cast<int>(width_), line.c_str());
+      width_ = std::max(width_, line.size());
+    } else {
+      std::fprintf(stderr, "%s\n", line.c_str());
+    }
+    std::fflush(stderr);
+    shown_ = true;
+  }
+
+ private:
+  double seconds() const {
+    return std::chrono::duration<double>(std::chrono::steady_clock::now() - start_).count();
+  }
+  std::string cmd_;
+  bool terminal_ = false, on_ = false, shown_ = false;
+  std::size_t width_ = 0;
+  int lp_solves_ = 0;
+  double last_ = 0.0;
+  std::chrono::steady_clock::time_point start_ = std::chrono::steady_clock::now();
+};
+
 }  // namespace
 
 int run_fair(int argc, char** argv) {
   const std::string cmd = argv[1];
   std::set<std::string> valued = kLoaderOptions;
   valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv"});
-  Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs"});
+  Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs", "progress"});
   if (args.has("help")) return std::cout << kHelp, kExitOk;
   if (usage_error(args, cmd, 1, kHelp)) return kExitBadInput;
   FairOptions opt;
@@ -114,7 +169,12 @@ int run_fair(int argc, char** argv) {
   if (!loaded) return kExitBadInput;
   const Network& net = *loaded;
 
-  const MultiflowResult r = solve_multiflow(net, opt);
+  MultiflowResult r;
+  {
+    ProgressLine progress(cmd, args.has("progress"));
+    if (progress.on()) opt.on_progress = [&progress](const SolveProgress& p) { progress.report(p); };
+    r = solve_multiflow(net, opt);
+  }
   if (r.status != SolveStatus::kOptimal) {
     std::cerr << "apportion " << cmd << ": " << status_name(r.status) << ": " << r.message << '\n';
     return kExitBadInput;

@@ -71,6 +71,10 @@ fair = json.load(open(prefix + ".json"))
 check("fair JSON has tiers, shares and the check",
       fair["status"] == "optimal" and fair["tiers"] and fair["check"]["ok"] and
       all(d["tier"] >= 1 for d in fair["demands"]))
+plain, shown = run("fair", demos[0]), run("fair", demos[0], "--progress")
+check("fair --progress reports on standard error and leaves the result alone",
+      shown.returncode == 0 and shown.stdout == plain.stdout and "apportion fair: solved in" in shown.stderr and
+      "LPs" in shown.stderr, shown.stderr)
 check("fair CSV tables are written", all(os.path.exists(prefix + s) for s in [".demands.csv", ".arcs.csv", ".paths.csv"]))
 check("fair --hop-limit 0 is a usage error", run("fair", demos[0], "--hop-limit", "0").returncode == 2)
 check("tradeoff --epsilon 2 is a usage error", run("tradeoff", demos[0], "--epsilon", "2").returncode == 2)
