@@ -2,7 +2,8 @@
 # fuzz.sh [--smoke | --seconds N | --runs N] [TARGET...]: builds the libFuzzer targets
 # (preset `fuzz`: clang with AddressSanitizer and UBSan), makes seed corpora from the demo
 # networks and from a small network (converted to every format by the command line), and
-# runs each target (all, or the ones named: json csv dimacs graphml payload solve result).
+# runs each target (all, or the ones named: json csv dimacs graphml payload solve result
+# matrix).
 #   --smoke      deterministic short run (seed 1, 2,000 inputs per target); part of test.sh
 #   --seconds N  each target for N seconds (default 60), corpora kept in build/fuzz/corpus
 #   --runs N     each target for N inputs (the long runs of the README: --runs 10000000)
@@ -15,7 +16,7 @@ mode=${1:---seconds}
 amount=${2:-60}
 shift $(( $# >= 2 ? 2 : $# ))
 targets=("$@")
-[ ${#targets[@]} = 0 ] && targets=(json csv dimacs graphml payload solve result)
+[ ${#targets[@]} = 0 ] && targets=(json csv dimacs graphml payload solve result matrix)
 "$root/shell/build.sh" native fuzz >/dev/null
 
 cli=build/native/shell/apportion
@@ -23,7 +24,7 @@ corpus=build/fuzz/corpus
 findings=build/fuzz/findings
 [ "$mode" = --smoke ] && rm -rf "$corpus"
 mkdir -p "$findings"
-for t in json csv dimacs graphml payload solve result; do mkdir -p "$corpus/$t"; done
+for t in json csv dimacs graphml payload solve result matrix; do mkdir -p "$corpus/$t"; done
 work=$(mktemp -d); trap 'rm -rf "$work"' EXIT
 # The demos, and a three-node network (invented): small seeds keep each input cheap.
 cat > "$work/abc.json" <<'JSON'
@@ -58,6 +59,9 @@ cat > "$corpus/graphml/small.graphml" <<'XML'
   </graph>
 </graphml>
 XML
+# Traffic matrices for the three nodes a, b, c (labels "Node a", ...) of the matrix target.
+printf ',a,Node b,c\na,,12.5,max\nNode b,3,0,\nc,1e3,"7",\n' > "$corpus/matrix/small.csv"
+printf 'corner,c,b\r\nb,0.5,\r\n' > "$corpus/matrix/crlf.csv"
 for rule in fair concurrent throughput feasible; do $cli $rule "$work/abc.json" --json "$corpus/result/$rule.json" >/dev/null 2>&1 || true; done
 
 status=0

@@ -13,5 +13,6 @@ int run_convert(int argc, char** argv);
 int run_max_flow(int argc, char** argv);  // also "mincut": the same solve, the cut first
 int run_min_cost_flow(int argc, char** argv);
 int run_fair(int argc, char** argv);  // fair, throughput, concurrent, feasible, tradeoff
+int run_demands(int argc, char** argv);
 
 }  // namespace apportion::cli

@@ -18,6 +18,7 @@ Commands:
   maxflow    maximum flow from origins to destinations, with a minimum cut
   mincut     the minimum cut that limits a maximum flow
   mincost    minimum-cost flow for an amount or for node supplies
+  demands    add many demands at once: all pairs, gravity model, a matrix CSV, a table
 
 Sharing capacity among all demands of a file:
   fair       weighted max-min fair shares, exact, with tiers and binding arcs
@@ -43,6 +44,7 @@ int main(int argc, char** argv) {
   if (cmd == "convert") return run_convert(argc, argv);
   if (cmd == "maxflow" || cmd == "mincut") return run_max_flow(argc, argv);
   if (cmd == "mincost") return run_min_cost_flow(argc, argv);
+  if (cmd == "demands") return run_demands(argc, argv);
   if (cmd == "fair" || cmd == "throughput" || cmd == "concurrent" || cmd == "feasible" || cmd == "tradeoff")
     return run_fair(argc, argv);
   std::cerr << "apportion: unknown command '" << cmd << "'\n" << kUsage;

@@ -369,6 +369,63 @@ try {
     await b.close();
   }
 
+  // 10b. A traffic matrix in one step: all pairs by the gravity model, one undo; then the
+  // same amount between two selected nodes; a selection of one node is refused by name.
+  {
+    const b = await browser();
+    const solved = b.next('solved');
+    await b.page.goto(`${base}/apportion.html`);
+    await solved;
+    const start = await b.state();
+    await b.act('matrix-dialog');
+    await b.page.waitForTimeout(300);
+    await b.page.screenshot({ path: path.join(artefacts, 'matrix-dialog.png') });
+    await b.page.keyboard.press('Escape');  // the dialog closes; the actions below run its Add
+    let ev = b.next('edited');
+    let re = b.next('solved');
+    await b.act('matrix gravity all 400 1 1 replace');
+    let e = await ev;
+    const n = start.nodes;
+    check(`matrix dialog: all ${n * (n - 1)} ordered pairs by the gravity model, one undo step`,
+          e && e.demands === n * (n - 1) && e.undo === `add ${n * (n - 1)} demands (gravity)`, JSON.stringify(e));
+    const r = await re;
+    check('matrix dialog: the page solves the whole matrix', r && r.status === 'optimal' && r.shares.length === n * (n - 1),
+          JSON.stringify(r && [r.status, r.shares.length]));
+    ev = b.next('edited');
+    await b.act('undo');
+    e = await ev;
+    check('matrix dialog: one undo takes every new demand back', e && e.demands === start.demands, JSON.stringify(e));
+    await b.page.waitForTimeout(300);
+    const pos = await b.positions();
+    const [[id1, [x1, y1]], [id2, [x2, y2]]] = Object.entries(pos.nodes);
+    let sel = b.next('selected');
+    await b.page.mouse.move(x1, y1);
+    await b.page.mouse.click(x1, y1);
+    await sel;
+    sel = b.next('selected');
+    await b.page.keyboard.down('Shift');
+    await b.page.mouse.move(x2, y2);
+    await b.page.mouse.click(x2, y2);
+    await sel;
+    await b.page.keyboard.up('Shift');
+    ev = b.next('edited');
+    await b.act('matrix uniform selected 5 1 2 keep');
+    e = await ev;
+    const st = await b.state();
+    check(`matrix dialog: between the 2 selected nodes (${id1}, ${id2}), both directions added`,
+          e && e.demands === start.demands + 2 && st.selection.nodes.length === 2, JSON.stringify([e, st.selection]));
+    sel = b.next('selected');
+    await b.page.mouse.move(x1, y1);
+    await b.page.mouse.click(x1, y1);
+    await sel;
+    const refused = b.next('matrix-refused');
+    await b.act('matrix max selected 0 1 1 keep');
+    const f = await refused;
+    check('matrix dialog: one selected node is refused, saying why', f && f.notice.includes('at least two nodes') &&
+          f.demands === start.demands + 2, JSON.stringify(f));
+    await b.close();
+  }
+
   // 11. A broken share link shows an error and keeps the demo.
   {
     const b = await browser();

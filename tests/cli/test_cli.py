@@ -43,7 +43,7 @@ def w(name, text):
 
 
 # Help: every subcommand answers --help with an example, exit 0.
-for cmd in ["validate", "convert", "maxflow", "mincut", "mincost", "fair", "throughput", "concurrent", "feasible",
+for cmd in ["validate", "convert", "maxflow", "mincut", "mincost", "demands", "fair", "throughput", "concurrent", "feasible",
             "tradeoff"]:
     r = run(cmd, "--help")
     check(f"{cmd} --help", r.returncode == 0 and "Example" in r.stdout and "demo-networks/" in r.stdout)
@@ -122,6 +122,49 @@ check("convert to dimacs-max", run("convert", base + ".json", "--to", "dimacs-ma
 v1 = run("maxflow", demos[0]).stdout.split()[2]
 v2 = run("maxflow", base + ".max").stdout.split()[2]
 check("the same maximum flow after JSON -> CSV -> JSON -> DIMACS", v1 == v2, f"{v1!r} vs {v2!r}")
+
+# Traffic matrices: generated, written as a matrix, read back, and a demands table added.
+base = json.load(open(demos[0]))
+n = len(base["nodes"])
+gen = os.path.join(args.work, "gravity.json")
+r = run("demands", demos[0], gen, "--gravity", "600", "--seed", "3", "--replace")
+net = json.load(open(gen)) if r.returncode == 0 else {"demands": []}
+check("demands --gravity: every ordered pair, amounts summing to the total",
+      r.returncode == 0 and len(net["demands"]) == n * (n - 1) and abs(sum(d["amount"] for d in net["demands"]) - 600) < 1e-9 and
+      run("validate", gen).returncode == 0, r.stderr)
+matrix = os.path.join(args.work, "gravity.matrix.csv")
+r = run("demands", gen, "--export-matrix", matrix)
+check("demands --export-matrix writes one row per node and a header", r.returncode == 0 and
+      len(open(matrix).read().strip().splitlines()) == n + 1, r.stderr)
+back = os.path.join(args.work, "gravity-back.json")
+r = run("demands", demos[0], back, "--matrix", matrix, "--replace")
+check("demands --matrix reads the matrix back to the same demands",
+      r.returncode == 0 and json.load(open(back))["demands"] == net["demands"], r.stderr)
+masses = w("masses.csv", "node,mass\n" + "".join(f"{v['id']},{2 if i == 0 else 1}\n" for i, v in enumerate(base["nodes"])))
+r = run("demands", demos[0], os.path.join(args.work, "masses.json"), "--gravity", "100", "--masses", masses, "--replace")
+got = json.load(open(os.path.join(args.work, "masses.json")))["demands"] if r.returncode == 0 else []
+# Hand-derived: node 0 has mass 2, the others 1; pairs touching node 0 have product 2, the
+# rest 1: 2(n-1) pairs of 2 and (n-1)(n-2) of 1.
+unit = 100 / (4 * (n - 1) + (n - 1) * (n - 2))
+check("demands --masses: gravity amounts from the given masses",
+      len(got) == n * (n - 1) and all(abs(d["amount"] - unit * (2 if base["nodes"][0]["id"] in (d["origin"], d["destination"]) else 1)) < 1e-9
+                                      for d in got), r.stderr)
+origin = base["nodes"][0]["id"]
+few = os.path.join(args.work, "few.json")
+r = run("demands", demos[0], few, "--uniform", "2", "--origins", origin, "--weight", "3")
+added = json.load(open(few))["demands"][len(base["demands"]):] if r.returncode == 0 else []
+check("demands --uniform --origins: one demand to every other node, with the weight",
+      len(added) == n - 1 and all(d["origin"] == origin and d["amount"] == 2 and d["weight"] == 3 for d in added), r.stderr)
+table = w("more.demands.csv", f"id,label,origin,destination,amount,weight\nextra,,{origin},{base['nodes'][1]['id']},5,2\n")
+r = run("demands", demos[0], os.path.join(args.work, "table.json"), "--table", table)
+check("demands --table adds a demands table", r.returncode == 0 and
+      json.load(open(os.path.join(args.work, "table.json")))["demands"][-1]["id"] == "extra", r.stderr)
+r = run("demands", demos[0], os.path.join(args.work, "x.json"), "--gravity", "1", "--max")
+check("demands with two sources of amounts is a usage error", r.returncode == 2 and "exactly one of" in r.stderr)
+r = run("demands", demos[0], os.path.join(args.work, "x.json"), "--max", "--origins", "nowhere")
+check("demands --origins names a node that does not exist", r.returncode == 2 and "'nowhere'" in r.stderr, r.stderr)
+r = run("demands", demos[0], demos[0], "--max")
+check("demands never overwrites its input", r.returncode == 2 and json.load(open(demos[0])) == base, r.stderr)
 
 # Killed mid-write: the output is the old file or the whole new one, never a part.
 import signal

@@ -1,5 +1,5 @@
 // libFuzzer targets for every way a file or link reaches Apportion: the network importers
-// (JSON, CSV tables, DIMACS, GraphML), the browser's file payload (which carries share
+// (JSON, CSV tables, DIMACS, GraphML, the traffic-matrix CSV), the browser's file payload (which carries share
 // links, picked files and autosaves), and result files read back. Each input must give a
 // network or diagnostics -- never a crash, a hang or a sanitizer finding -- and a network
 // that comes back must pass validation and survive a JSON round trip unchanged in size.
@@ -10,6 +10,7 @@
 #include <cstdlib>
 #include <string>
 
+#include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_csv.h"
 #include "apportion/formats/network_dimacs.h"
 #include "apportion/formats/network_graphml.h"
@@ -87,6 +88,26 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   std::string error;
   const auto r = read_multiflow_json(net, text, error);
   if (!r && error.empty()) std::abort();
+#elif APPORTION_FUZZ_TARGET == 8
+  // A traffic matrix for a three-node network (nodes by id or label): what it accepts must
+  // make valid demands, and must write and read back to the same pairs.
+  static const Network net = [] {
+    Network n;
+    for (const char* id : {"a", "b", "c"}) n.nodes.push_back({id, std::string("Node ") + id, 0.0, 0.0, 0.0});
+    n.arcs.push_back({"ab", 0, 1, 5.0, std::nullopt, std::nullopt, true, false});
+    n.arcs.push_back({"bc", 1, 2, 5.0, std::nullopt, std::nullopt, true, false});
+    return n;
+  }();
+  const MatrixCsvRead m = read_matrix_csv(net, text);
+  if (!m.ok()) {
+    if (!m.pairs.empty()) std::abort();  // refused, yet pairs given
+    return 0;
+  }
+  Network with = net;
+  add_pair_demands(with, m.pairs, 1.0, false);
+  if (validate(with).has_errors()) std::abort();
+  const MatrixCsvRead back = read_matrix_csv(net, write_matrix_csv(with).text);
+  if (!back.ok() || back.pairs.size() != m.pairs.size()) std::abort();
 #endif
   return 0;
 }

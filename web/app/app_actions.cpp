@@ -13,6 +13,7 @@
 #include "apportion/formats/network_json.h"
 #include "apportion/layout/network_layout.h"
 #include "apportion/model/number_text.h"
+#include "apportion/model/traffic_matrix.h"
 #include "apportion/model/validation.h"
 #include "apportion/multiflow/fair_multiflow.h"
 #include "apportion/results/multiflow_result_export.h"
@@ -266,6 +267,37 @@ void set_field(const std::string& spec) {
   }
 }
 
+bool add_matrix_demands() {
+  App& a = app();
+  MatrixChoices& m = a.matrix;
+  TrafficMatrixSpec spec;
+  if (m.between == 1) {
+    if (a.selection.nodes.size() < 2) return m.error = "Select at least two nodes, or choose all nodes.", false;
+    spec.origins = spec.destinations = a.selection.nodes;
+  }
+  spec.amounts = m.amounts == 0 ? MatrixAmounts::kGravity : m.amounts == 1 ? MatrixAmounts::kUniform : MatrixAmounts::kMax;
+  spec.total = m.total;
+  if (m.amounts == 0 && !(m.total > 0)) {  // default: a third of the capacity, as the benchmarks ask
+    spec.total = 0;
+    for (const Arc& e : a.doc.arcs) spec.total += e.enabled ? e.capacity : 0.0;
+    spec.total /= 3;
+  }
+  spec.uniform_amount = m.amount;
+  spec.seed = static_cast<std::uint64_t>(std::max(0, m.seed));
+  spec.weight = m.weight;
+  spec.replace = m.replace;
+  Network trial = a.doc;
+  const TrafficMatrixResult r = add_traffic_matrix(trial, spec);
+  if (!r.ok) {
+    m.error = r.diagnostics.items.empty() ? "The demands could not be added." : r.diagnostics.items[0].to_string();
+    return false;
+  }
+  m.error.clear();
+  const char* kind = m.amounts == 0 ? "gravity" : m.amounts == 1 ? "same amount" : "as much as possible";
+  edit("add " + std::to_string(r.added) + " demands (" + kind + ")", true, [&](Network& d) { d = std::move(trial); });
+  return true;
+}
+
 // Every button's action, by name: the UI and the test hook share this code.
 void action(const std::string& what) {
   App& a = app();
@@ -319,6 +351,24 @@ void action(const std::string& what) {
     set_field(what.substr(4));
   } else if (what == "state") {
     report("state");
+  } else if (what == "matrix-dialog") {
+    a.matrix_dialog_requested = true;
+  } else if (what.rfind("matrix ", 0) == 0) {
+    // "matrix gravity|uniform|max all|selected VALUE SEED WEIGHT keep|replace": the dialog's Add
+    std::istringstream in(what.substr(7));
+    std::string amounts, between, mode;
+    double value = 0, weight = 1;
+    int seed = 1;
+    in >> amounts >> between >> value >> seed >> weight >> mode;
+    MatrixChoices& m = a.matrix;
+    m.amounts = amounts == "gravity" ? 0 : amounts == "uniform" ? 1 : 2;
+    m.between = between == "selected" ? 1 : 0;
+    (m.amounts == 0 ? m.total : m.amount) = value;
+    m.seed = seed, m.weight = weight, m.replace = mode == "replace";
+    if (!add_matrix_demands()) {
+      a.notice = m.error;
+      report("matrix-refused");
+    }
   }
 }
 

@@ -30,6 +30,18 @@ struct RunningSolve {
   int round = 0, settled = 0, demands = 0, lp_solves = 0;
 };
 
+// The "Add demands" dialog's choices (traffic_matrix.h): kept between openings.
+struct MatrixChoices {
+  int between = 0;   // 0: all nodes, 1: the selected nodes
+  int amounts = 0;   // 0: gravity, 1: the same amount for each pair, 2: as much as possible
+  double total = 0;  // gravity: the sum of the amounts (0: a third of the total capacity)
+  double amount = 1;
+  int seed = 1;
+  double weight = 1;
+  bool replace = false;
+  std::string error;  // of the last attempt, shown in the dialog
+};
+
 struct App {
   GLFWwindow* window = nullptr;
   Network doc;
@@ -62,6 +74,8 @@ struct App {
   bool png_requested = false;
   float dpr = 1.0f;
   bool first_frame_reported = false;
+  MatrixChoices matrix;
+  bool matrix_dialog_requested = false;  // opened by the test hook, as by its button
 };
 
 App& app();
@@ -97,6 +111,9 @@ void delete_selection();
 void select_item(const std::string& kind, const std::string& id);  // from a validation message
 void report(const char* event);  // a machine-readable console line for tests
 void action(const std::string& what);
+// Adds the demands app().matrix describes, as one undoable edit; false (and matrix.error
+// set) when they cannot be added, with the document unchanged.
+bool add_matrix_demands();
 
 template <class Change>
 void edit(const std::string& what, bool affects_solve, Change&& change) {

@@ -111,7 +111,9 @@ void apply_canvas_input(const CanvasInput& in) {
 
 void keyboard() {
   ImGuiIO& io = ImGui::GetIO();
-  if (io.WantTextInput) return;
+  // Typing, or a dialog open: the keys belong to it (Delete must not delete the selection
+  // behind an open dialog).
+  if (io.WantTextInput || ImGui::IsPopupOpen("", ImGuiPopupFlags_AnyPopupId)) return;
   const bool command = io.KeyCtrl || io.KeySuper;
   if (command && ImGui::IsKeyPressed(ImGuiKey_Z, false)) io.KeyShift ? redo() : undo();
   else if (command && ImGui::IsKeyPressed(ImGuiKey_Y, false)) redo();

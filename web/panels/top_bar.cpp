@@ -80,6 +80,55 @@ void recover_menu() {
   ImGui::EndPopup();
 }
 
+// A traffic matrix in one step (traffic_matrix.h): which pairs, their amounts, their weight.
+void matrix_dialog() {
+  App& a = app();
+  MatrixChoices& m = a.matrix;
+  ImGui::SetNextWindowSize(ImVec2(460, 0), ImGuiCond_Appearing);
+  if (!ImGui::BeginPopupModal("Add demands", nullptr, ImGuiWindowFlags_NoSavedSettings)) return;
+  if (ImGui::IsWindowAppearing()) m.error.clear();
+  const int n = m.between == 1 ? static_cast<int>(a.selection.nodes.size()) : a.doc.node_count();
+  ImGui::TextUnformatted("One demand for every ordered pair of distinct nodes among");
+  ImGui::RadioButton("all nodes", &m.between, 0);
+  ImGui::SameLine();
+  char selected[64];
+  std::snprintf(selected, sizeof selected, "the %zu selected nodes", a.selection.nodes.size());
+  ImGui::RadioButton(selected, &m.between, 1);
+  ImGui::Text("%d pairs", n > 1 ? n * (n - 1) : 0);
+  ImGui::Separator();
+  ImGui::TextUnformatted("Amounts");
+  ImGui::RadioButton("gravity model", &m.amounts, 0);
+  ImGui::SameLine();
+  ImGui::RadioButton("the same for each", &m.amounts, 1);
+  ImGui::SameLine();
+  ImGui::RadioButton("as much as possible", &m.amounts, 2);
+  const std::string unit = a.doc.units.capacity.empty() ? "" : " (" + a.doc.units.capacity + ")";
+  if (m.amounts == 0) {
+    ImGui::TextWrapped("Pair (i, j) asks total x m_i m_j / (sum over the pairs of m_p m_q), node masses m drawn "
+                       "from [1, 10) with the seed. Total 0: a third of the total capacity.");
+    ImGui::SetNextItemWidth(160);
+    ImGui::InputDouble(("total" + unit).c_str(), &m.total, 0, 0, "%.6g");
+    ImGui::SetNextItemWidth(160);
+    ImGui::InputInt("seed", &m.seed);
+  } else if (m.amounts == 1) {
+    ImGui::SetNextItemWidth(160);
+    ImGui::InputDouble(("amount of each pair" + unit).c_str(), &m.amount, 0, 0, "%.6g");
+  }
+  ImGui::SetNextItemWidth(160);
+  ImGui::InputDouble("weight of each", &m.weight, 0, 0, "%.6g");
+  ImGui::Checkbox("replace the existing demands", &m.replace);
+  if (!m.error.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::TextWrapped("%s", m.error.c_str());
+    ImGui::PopStyleColor();
+  }
+  ImGui::TextDisabled("One step: Undo takes all of them back.");
+  if (ImGui::Button("Add") && add_matrix_demands()) ImGui::CloseCurrentPopup();
+  ImGui::SameLine();
+  if (ImGui::Button("Cancel") || ImGui::IsKeyPressed(ImGuiKey_Escape)) ImGui::CloseCurrentPopup();
+  ImGui::EndPopup();
+}
+
 }  // namespace
 
 void draw_toolbar() {
@@ -128,6 +177,12 @@ void draw_toolbar() {
   tool_button("Add arc", Tool::kAddArc, "Click the tail node, then the head node.");
   ImGui::SameLine();
   tool_button("Add demand", Tool::kAddDemand, "Click the origin, then the destination.");
+  ImGui::SameLine();
+  if (ImGui::Button("Demands...") || a.matrix_dialog_requested) ImGui::OpenPopup("Add demands");
+  a.matrix_dialog_requested = false;
+  if (ImGui::IsItemHovered())
+    ImGui::SetTooltip("Add a demand for every pair of nodes (all, or the selected ones) at once: a traffic matrix.");
+  matrix_dialog();
   ImGui::SameLine();
   if (ImGui::Button("Fit")) action("fit");
   ImGui::SameLine();
