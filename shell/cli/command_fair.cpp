@@ -114,6 +114,11 @@ class ProgressLine {
       line += ", round " + std::to_string(p.round) + ", " + std::to_string(p.demands_settled) + " of " +
               std::to_string(p.demands) + " demands settled";
     line += ", " + std::to_string(p.lp_solves) + " LPs, " + std::to_string(static_cast<long>(now)) + " s";
+    // Time left from the rate at which demands settle so far: rough, so only once a tenth
+    // is settled, and as "about" (the page shows the same).
+    const double fraction = p.demands > 0 ? static_cast<double>(p.demands_settled) / p.demands : 0.0;
+    if (p.round > 0 && fraction >= 0.1 && fraction < 1.0)
+      line += ", about " + std::to_string(static_cast<long>(now * (1.0 - fraction) / fraction)) + " s left in this stage";
     if (terminal_) {
       std::fprintf(stderr, "\r%-*s", static_cast<int>(width_), line.c_str());
       width_ = std::max(width_, line.size());

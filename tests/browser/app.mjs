@@ -423,6 +423,21 @@ try {
     const f = await refused;
     check('matrix dialog: one selected node is refused, saying why', f && f.notice.includes('at least two nodes') &&
           f.demands === start.demands + 2, JSON.stringify(f));
+
+    // A long solve pauses "solve after each edit" (threshold lowered to 1 ms for the test;
+    // the page's own is 3 s), says so, and an edit then starts no solve until asked.
+    await b.act('auto-solve-pause-ms 1');
+    const paused = b.next('auto-solve-paused');
+    await b.act('matrix gravity all 0 2 1 replace');
+    const pz = await paused;
+    check('a long solve pauses solving after each edit, and says so', pz && pz.auto_solve === false &&
+          pz.notice.includes('is paused'), JSON.stringify(pz && [pz.auto_solve, pz.notice]));
+    const noSolve = b.next('solve-started', 2000);
+    await b.act('undo');
+    check('while paused, an edit starts no solve', (await noSolve) === null && (await b.state()).status === 'not solved');
+    const asked = b.next('solved');
+    await b.act('solve');
+    check('while paused, Solve still solves', (await asked) !== null);
     await b.close();
   }
 

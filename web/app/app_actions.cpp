@@ -44,7 +44,8 @@ std::string state_json(const char* event) {
                       {"messages", a.open_errors}, {"notice", a.notice}, {"revision", a.revision},
                       {"solving", a.solve.running}, {"nodes", a.doc.node_count()}, {"arcs", a.doc.arc_count()},
                       {"demands", a.doc.demands.size()}, {"undo", a.history.undo_name()},
-                      {"redo", a.history.redo_name()}, {"other_tab_saved", a.other_tab_saved}};
+                      {"redo", a.history.redo_name()}, {"other_tab_saved", a.other_tab_saved},
+                      {"auto_solve", a.auto_solve}};
   nlohmann::json shares = nlohmann::json::array();
   if (result_is_current())
     for (const auto& d : a.result.demands) shares.push_back(d.share);
@@ -140,12 +141,28 @@ void request_solve() {
   report("solve-started");
 }
 
+// Turns "solve after each edit" off after a solve of `ms`, if that was long (see
+// App::auto_solve_pause_ms), and says so.
+void pause_auto_solve_after(double ms, const char* what) {
+  App& a = app();
+  if (!a.auto_solve || ms <= a.auto_solve_pause_ms) return;
+  a.auto_solve = false;
+  char text[300];
+  std::snprintf(text, sizeof text,
+                "%s took %.1f s, so \"solve after each edit\" is paused: edit freely, then press Solve (or tick the "
+                "box again).",
+                what, ms / 1000.0);
+  a.notice += (a.notice.empty() ? "" : " ") + std::string(text);
+  report("auto-solve-paused");
+}
+
 void cancel_solve() {
   App& a = app();
   if (!a.solve.running) return;
   stop_solver();
   a.solve.running = false;
   a.notice = "Solve cancelled; the document is unchanged.";
+  pause_auto_solve_after(emscripten_get_now() - a.solve.started_ms, "The cancelled solve");
   report("cancelled");
 }
 
@@ -193,6 +210,7 @@ void receive_solve_result(int id, const std::string& text) {
   a.result_edit = a.history.undo_name();
   a.solve.doc = Network{};
   report("solved");
+  pause_auto_solve_after(emscripten_get_now() - a.solve.started_ms, "The last solve");
 }
 
 void receive_solve_failure(int id, const std::string& message) {
@@ -351,6 +369,8 @@ void action(const std::string& what) {
     set_field(what.substr(4));
   } else if (what == "state") {
     report("state");
+  } else if (what.rfind("auto-solve-pause-ms ", 0) == 0) {
+    a.auto_solve_pause_ms = std::atof(what.c_str() + 20);
   } else if (what == "matrix-dialog") {
     a.matrix_dialog_requested = true;
   } else if (what.rfind("matrix ", 0) == 0) {

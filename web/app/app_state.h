@@ -54,6 +54,10 @@ struct App {
   FairOptions options;
   int objective = 0;           // index into kObjectives
   bool auto_solve = true;
+  // A solve (or a cancelled one) that took longer pauses "solve after each edit": an edit
+  // should answer at once, and a network that takes this long would start a long solve on
+  // every keystroke. 3 s: GtsCe with 500 demands takes 2.7 s in the page (README, Benchmark).
+  double auto_solve_pause_ms = 3000;
   MultiflowResult result;
   long long result_revision = -1;
   // Shares of the result before this one, by demand id: what the last edit changed.

@@ -224,10 +224,15 @@ void draw_toolbar() {
     ImGui::SameLine();
     const double seconds = (emscripten_get_now() - a.solve.started_ms) / 1000.0;
     const float fraction = a.solve.demands > 0 ? static_cast<float>(a.solve.settled) / a.solve.demands : 0.0f;
-    char overlay[160];
-    std::snprintf(overlay, sizeof overlay, "%s: %d of %d demands settled, %d LPs, %.1f s",
+    // Time left, from the rate at which demands settle so far: rough (late tiers can be
+    // slower or faster), so shown only once a tenth is settled, and as "about".
+    char left[64] = "";
+    if (fraction >= 0.1f && fraction < 1.0f)
+      std::snprintf(left, sizeof left, ", about %.0f s left in this stage", seconds * (1.0 - fraction) / fraction);
+    char overlay[200];
+    std::snprintf(overlay, sizeof overlay, "%s: %d of %d demands settled, %d LPs, %.1f s%s",
                   a.solve.stage.empty() ? "starting" : a.solve.stage.c_str(), a.solve.settled, a.solve.demands,
-                  a.solve.lp_solves, seconds);
+                  a.solve.lp_solves, seconds, left);
     ImGui::ProgressBar(fraction, ImVec2(-1, 0), overlay);
   } else {
     if (ImGui::Button("Solve")) request_solve();
