@@ -424,6 +424,28 @@ try {
     check('matrix dialog: one selected node is refused, saying why', f && f.notice.includes('at least two nodes') &&
           f.demands === start.demands + 2, JSON.stringify(f));
 
+    // The network's name and units are edited in the page, with undo.
+    ev = b.next('edited');
+    await b.act('set network - name Harrowmere east, 2027 plan');
+    e = await ev;
+    ev = b.next('edited');
+    await b.act('set network - capacity-unit Tbit/s');
+    await ev;
+    const renamed = await b.state();
+    const svgName = b.page.waitForEvent('download');
+    await b.act('export-svg');
+    const named = fs.readFileSync(await (await svgName).path(), 'utf8');
+    check('network name and unit: edited in the page, used by the exports', e && e.network === 'Harrowmere east, 2027 plan' &&
+          renamed.undo === 'capacity unit' && named.includes('Harrowmere east, 2027 plan') && named.includes('Tbit/s'),
+          JSON.stringify([e && e.network, renamed.undo]));
+    ev = b.next('edited');
+    await b.act('undo');
+    await ev;
+    ev = b.next('edited');
+    await b.act('undo');
+    e = await ev;
+    check('network name: undo restores it', e && e.network === start.network, JSON.stringify(e && e.network));
+
     // A long solve pauses "solve after each edit" (threshold lowered to 1 ms for the test;
     // the page's own is 3 s), says so, and an edit then starts no solve until asked.
     await b.act('auto-solve-pause-ms 1');

@@ -13,6 +13,7 @@
 #include "apportion/formats/network_json.h"
 #include "apportion/layout/network_layout.h"
 #include "apportion/model/number_text.h"
+#include "apportion/model/size_limits.h"
 #include "apportion/model/traffic_matrix.h"
 #include "apportion/model/validation.h"
 #include "apportion/multiflow/fair_multiflow.h"
@@ -282,6 +283,22 @@ void set_field(const std::string& spec) {
   } else if (kind == "node" && a.doc.find_node(id) >= 0) {
     const int v = a.doc.find_node(id);
     if (field == "label") edit(what, false, [&](Network& d) { d.nodes[v].label = value; });
+  } else if (kind == "network") {  // "network - name|capacity-unit|cost-unit|time-unit TEXT"
+    // The same limit as every file's (size_limits.h); the solve does not depend on these.
+    if (value.size() > SizeLimits::kMaxStringLength) {
+      a.notice = "That " + field + " is longer than " + std::to_string(SizeLimits::kMaxStringLength) +
+                 " characters; it is unchanged.";
+      return;
+    }
+    std::string Network::*name = nullptr;
+    std::string Units::*unit = nullptr;
+    if (field == "name") name = &Network::name;
+    if (field == "capacity-unit") unit = &Units::capacity;
+    if (field == "cost-unit") unit = &Units::cost;
+    if (field == "time-unit") unit = &Units::time;
+    if (name) edit("rename the network", false, [&](Network& d) { d.*name = value; });
+    if (unit) edit(field.substr(0, field.find('-')) + " unit", false, [&](Network& d) { d.units.*unit = value; });
+    report("edited");
   }
 }
 

@@ -37,6 +37,20 @@ bool edit_id(const Items& items, const std::string& current, std::string& out) {
   return !out.empty();
 }
 
+// The network itself: its name (the title of exports and reports) and units, with undo.
+void network_inspector() {
+  App& a = app();
+  ImGui::TextUnformatted("Network");
+  ImGui::PushItemWidth(220);
+  std::string s;
+  if (edit_text("name", a.doc.name, s)) action("set network - name " + s);
+  if (edit_text("capacity unit", a.doc.units.capacity, s)) action("set network - capacity-unit " + s);
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("Of capacities, amounts and shares, e.g. Gbit/s or t/day.");
+  if (edit_text("cost unit", a.doc.units.cost, s)) action("set network - cost-unit " + s);
+  if (edit_text("time unit", a.doc.units.time, s)) action("set network - time-unit " + s);
+  ImGui::PopItemWidth();
+}
+
 void node_inspector(int v) {
   App& a = app();
   const Node& n = a.doc.nodes[v];
@@ -110,6 +124,8 @@ void draw_inspector() {
   const Selection& sel = a.selection;
   const std::size_t count = sel.nodes.size() + sel.arcs.size() + sel.demands.size();
   if (count == 0) {
+    network_inspector();
+    ImGui::Separator();
     ImGui::TextWrapped("Nothing selected. Click a node or an arc on the canvas, drag a box around nodes, or pick a "
                        "demand in the Demands tab.");
     return;
