@@ -111,7 +111,7 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
     auto values = read_data(edge, edge_keys);
     auto cap = number(values, options.capacity_attribute.c_str(), "edge", id);
     if (!cap) ++defaulted;
-    a.capacity = cap.value_or(options.default_capacity);
+    a.capacity = cap ? *cap * options.capacity_scale : options.default_capacity;
     a.cost = number(values, "cost", "edge", id);
     a.transit = number(values, "transit", "edge", id);
     pugi::xml_attribute directed = edge.attribute("directed");
@@ -132,9 +132,40 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
               std::to_string(defaulted) + " of " + std::to_string(count) + " edges have no '" +
                   options.capacity_attribute + "' attribute; they got the default capacity " +
                   format_number(options.default_capacity));
+  if (!options.capacity_unit.empty()) net.units.capacity = options.capacity_unit;
   d.append(validate(net));
   if (!d.has_errors()) result.network = std::move(net);
   return result;
+}
+
+std::vector<GraphmlAttribute> graphml_edge_attributes(const std::string& text) {
+  std::vector<GraphmlAttribute> out;
+  pugi::xml_document doc;
+  if (!doc.load_buffer(text.data(), text.size())) return out;
+  pugi::xml_node root = doc.child("graphml");
+  std::unordered_map<std::string, std::size_t> by_key;
+  for (pugi::xml_node key : root.children("key")) {
+    const std::string dom = key.attribute("for").as_string("all");
+    if (dom != "edge" && dom != "all") continue;
+    const std::string id = key.attribute("id").as_string();
+    by_key[id] = out.size();
+    out.push_back({key.attribute("attr.name").as_string(id.c_str()), 0});
+  }
+  for (pugi::xml_node edge : root.child("graph").children("edge"))
+    for (pugi::xml_node data : edge.children("data")) {
+      auto it = by_key.find(data.attribute("key").as_string());
+      if (it != by_key.end() && *data.text().as_string()) ++out[it->second].edges_with_value;
+    }
+  return out;
+}
+
+double link_speed_factor(const std::string& unit) {
+  if (unit == "bit/s") return 1.0;
+  if (unit == "kbit/s") return 1e3;
+  if (unit == "Mbit/s") return 1e6;
+  if (unit == "Gbit/s") return 1e9;
+  if (unit == "Tbit/s") return 1e12;
+  return 0.0;
 }
 
 }  // namespace apportion

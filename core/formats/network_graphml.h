@@ -6,11 +6,14 @@
 //   cost, transit (optional) on edges; label or name, x and y on nodes; Longitude/Latitude
 //   are taken as x and -y when x/y are absent (common in published topology files).
 // An edge without the capacity attribute gets `default_capacity` and one warning says how
-// many did. Undirected edges (edgedefault="undirected" or directed="false") become shared
+// many did. Attribute values are multiplied by `capacity_scale` (a link speed in bit/s read
+// into Gbit/s: 1e-9; see link_speed_factor), and `capacity_unit`, when given, becomes the
+// network's capacity unit; the default capacity is taken in that unit as it is. Undirected edges (edgedefault="undirected" or directed="false") become shared
 // two-way arcs, or two independent arcs when `undirected_as_pairs` is set. Demands: none.
 #pragma once
 
 #include <string>
+#include <vector>
 
 #include "apportion/formats/load_result.h"
 
@@ -20,8 +23,22 @@ struct GraphmlOptions {
   std::string capacity_attribute = "capacity";
   double default_capacity = 1.0;
   bool undirected_as_pairs = false;
+  double capacity_scale = 1.0;
+  std::string capacity_unit;  // empty: none set
 };
 
 LoadResult read_graphml(const std::string& text, const GraphmlOptions& options = {});
+
+// The edge attributes a GraphML file declares (attr.name of each <key for="edge|all">), in
+// file order, and how many edges give each a value: for choosing the capacity attribute.
+struct GraphmlAttribute {
+  std::string name;
+  int edges_with_value = 0;
+};
+std::vector<GraphmlAttribute> graphml_edge_attributes(const std::string& text);
+
+// Bits per second in one unit of a link speed: "bit/s" 1, "kbit/s" 1e3, "Mbit/s" 1e6,
+// "Gbit/s" 1e9, "Tbit/s" 1e12 (SI prefixes, as link speeds are quoted); 0 for any other.
+double link_speed_factor(const std::string& unit);
 
 }  // namespace apportion

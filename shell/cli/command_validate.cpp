@@ -17,6 +17,10 @@ Options:
   --capacity-attribute NAME GraphML: the edge attribute holding capacity (default capacity)
   --default-capacity X      GraphML: capacity for edges without it (default 1)
   --undirected shared|pairs GraphML: undirected edges as one shared arc or two arcs
+  --attribute-unit U        GraphML: the capacity attribute is a link speed in U (bit/s,
+                            kbit/s, Mbit/s, Gbit/s, Tbit/s), converted to the network's unit
+  --unit U                  GraphML: the network's capacity unit (default with
+                            --attribute-unit: Gbit/s); the default capacity is in it
 
 Example:
   apportion validate demo-networks/harrowmere-fibre.json

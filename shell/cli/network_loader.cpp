@@ -74,6 +74,18 @@ LoadResult load_network(const std::string& path, const Args& args, OutputGuard& 
       }
       opt.undirected_as_pairs = *u == "pairs";
     }
+    if (auto u = args.get("unit")) opt.capacity_unit = *u;
+    if (auto from = args.get("attribute-unit")) {
+      if (opt.capacity_unit.empty()) opt.capacity_unit = "Gbit/s";
+      const double f = link_speed_factor(*from), to = link_speed_factor(opt.capacity_unit);
+      if (f == 0 || to == 0) {
+        failed.diagnostics.error("option", f == 0 ? "--attribute-unit" : "--unit", "",
+                                 "'" + (f == 0 ? *from : opt.capacity_unit) +
+                                     "' is not a link speed unit (bit/s, kbit/s, Mbit/s, Gbit/s, Tbit/s)");
+        return failed;
+      }
+      opt.capacity_scale = f / to;
+    }
     return read_graphml(text, opt);
   }
   failed.diagnostics.error("file", path, "", format.empty() ? "unknown file type; use --format json|csv|dimacs|graphml"

@@ -166,6 +166,20 @@ check("demands --origins names a node that does not exist", r.returncode == 2 an
 r = run("demands", demos[0], demos[0], "--max")
 check("demands never overwrites its input", r.returncode == 2 and json.load(open(demos[0])) == base, r.stderr)
 
+# GraphML link speeds with their unit (invented topology): Mbit/s read into Gbit/s.
+topo = w("speeds.graphml", """<graphml><key id="s" for="edge" attr.name="speed"/><graph id="T" edgedefault="undirected">
+<node id="a"/><node id="b"/><node id="c"/>
+<edge source="a" target="b"><data key="s">2500</data></edge><edge source="b" target="c"/></graph></graphml>""")
+out = os.path.join(args.work, "speeds.json")
+r = run("convert", topo, "--to", "json", out, "--capacity-attribute", "speed", "--attribute-unit", "Mbit/s",
+        "--default-capacity", "10")
+conv = json.load(open(out)) if r.returncode == 0 else {}
+check("GraphML --attribute-unit: Mbit/s read into Gbit/s, the default in Gbit/s, one warning",
+      conv.get("units", {}).get("capacity") == "Gbit/s" and [a["capacity"] for a in conv["arcs"]] == [2.5, 10] and
+      "1 of 2 edges" in r.stderr, r.stderr)
+r = run("convert", topo, "--to", "json", out, "--capacity-attribute", "speed", "--attribute-unit", "MB/s")
+check("GraphML --attribute-unit refuses a unit that is not a link speed", r.returncode == 2 and "'MB/s'" in r.stderr, r.stderr)
+
 # Killed mid-write: the output is the old file or the whole new one, never a part.
 import signal
 import time

@@ -222,6 +222,46 @@ TEST_CASE("GraphML: keys map to capacity, labels and positions", "[graphml]") {
   CHECK(read_graphml(text, opt).network->arc_count() == 3);
 }
 
+TEST_CASE("GraphML: a link speed in bit/s read into Gbit/s, and the attributes listed", "[graphml]") {
+  // The SI prefixes of link speeds (1 Gbit/s = 1e9 bit/s: ITU-T and IEEE 802.3 usage; common
+  // practice, no source). Invented three-node topology.
+  const std::string text = R"(<graphml>
+  <key id="s" for="edge" attr.name="LinkSpeedRaw"/>
+  <key id="n" for="edge" attr.name="LinkNote"/>
+  <key id="x" for="all" attr.name="label"/>
+  <graph id="G" edgedefault="undirected">
+    <node id="a"/><node id="b"/><node id="c"/>
+    <edge source="a" target="b"><data key="s">155000000</data><data key="n">leased</data></edge>
+    <edge source="b" target="c"><data key="s">10000000000</data></edge>
+    <edge source="c" target="a"/>
+  </graph>
+</graphml>)";
+  CHECK(link_speed_factor("bit/s") == 1.0);
+  CHECK(link_speed_factor("Mbit/s") == 1e6);
+  CHECK(link_speed_factor("Gbit/s") == 1e9);
+  CHECK(link_speed_factor("Tbit/s") == 1e12);
+  CHECK(link_speed_factor("GB/s") == 0.0);
+  GraphmlOptions opt;
+  opt.capacity_attribute = "LinkSpeedRaw";
+  opt.capacity_scale = link_speed_factor("bit/s") / link_speed_factor("Gbit/s");
+  opt.capacity_unit = "Gbit/s";
+  opt.default_capacity = 1;
+  const LoadResult r = read_graphml(text, opt);
+  REQUIRE(r.ok());
+  CHECK(r.network->units.capacity == "Gbit/s");
+  CHECK_THAT(r.network->arcs[0].capacity, Catch::Matchers::WithinRel(0.155, 1e-15));
+  CHECK_THAT(r.network->arcs[1].capacity, Catch::Matchers::WithinRel(10.0, 1e-15));
+  CHECK(r.network->arcs[2].capacity == 1.0);  // the default, in the network's unit, unscaled
+  REQUIRE(r.diagnostics.warning_count() == 1);
+  CHECK(r.diagnostics.items[0].message.find("1 of 3 edges") != std::string::npos);
+  const std::vector<GraphmlAttribute> attrs = graphml_edge_attributes(text);
+  REQUIRE(attrs.size() == 3);
+  CHECK((attrs[0].name == "LinkSpeedRaw" && attrs[0].edges_with_value == 2));
+  CHECK((attrs[1].name == "LinkNote" && attrs[1].edges_with_value == 1));
+  CHECK((attrs[2].name == "label" && attrs[2].edges_with_value == 0));
+  CHECK(graphml_edge_attributes("<not xml").empty());
+}
+
 TEST_CASE("GraphML: broken XML and dangling edges are refused", "[graphml]") {
   CHECK(!read_graphml("<graphml><graph>").ok());
   CHECK(!read_graphml("<other/>").ok());
