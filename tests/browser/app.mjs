@@ -463,6 +463,40 @@ try {
     await b.close();
   }
 
+  // 10c. A GraphML topology: the page asks which attribute holds capacity and in what unit,
+  // reads link speeds in Mbit/s into Gbit/s, and says how many links got the default.
+  {
+    const b = await browser();
+    await b.page.goto(`${base}/apportion.html`);
+    await b.next('solved');
+    const topo = writeTmp('speeds.graphml', `<graphml><key id="s" for="edge" attr.name="LinkSpeed"/>
+<key id="l" for="node" attr.name="label"/><graph id="Ridgeway backbone" edgedefault="undirected">
+<node id="a"><data key="l">Ashby</data></node><node id="b"/><node id="c"/>
+<edge source="a" target="b"><data key="s">2500</data></edge><edge source="b" target="c"/></graph></graphml>`);
+    const choices = await openFile(b, topo, 'import-choices');
+    check('GraphML: the page lists the edge attributes and guesses the link speed', choices &&
+          choices.attributes.length === 1 && choices.attributes[0].name === 'LinkSpeed' && choices.attributes[0].edges === 1 &&
+          choices.guess === 0, JSON.stringify(choices));
+    await b.page.waitForTimeout(300);
+    await b.page.screenshot({ path: path.join(artefacts, 'graphml-choices.png') });
+    const refused = b.next('open-failed');
+    await b.act('import-graphml LinkSpeed Mbit/s t/day 10 pairs');
+    const f = await refused;
+    check('GraphML: a link speed cannot be converted to a unit that is not one, and says so',
+          f && f.notice.includes("'t/day' is not a link speed unit") && f.network !== 'Ridgeway backbone', JSON.stringify(f && f.notice));
+    const opened = b.next('opened');
+    await b.act('import-graphml LinkSpeed Mbit/s Gbit/s 10 pairs');
+    const o = await opened;
+    const saved = b.page.waitForEvent('download');
+    await b.act('save-network');
+    const net = JSON.parse(fs.readFileSync(await (await saved).path(), 'utf8'));
+    check('GraphML: opened with 2.5 Gbit/s from 2500 Mbit/s, the default 10, two arcs per link, and the warning shown',
+          o && o.network === 'Ridgeway backbone' && net.units.capacity === 'Gbit/s' &&
+          JSON.stringify(net.arcs.map((x) => x.capacity)) === '[2.5,2.5,10,10]' && o.notice.includes('1 of 2 edges'),
+          JSON.stringify([o && o.notice, net.arcs.map((x) => x.capacity), net.units]));
+    await b.close();
+  }
+
   // 11. A broken share link shows an error and keeps the demo.
   {
     const b = await browser();

@@ -333,6 +333,77 @@ bool add_matrix_demands() {
   return true;
 }
 
+void ask_graphml_choices(const std::string& name, const std::string& text) {
+  GraphmlChoices& g = app().graphml;
+  const GraphmlChoices kept = g;  // the unit and default of the last import stay
+  g = GraphmlChoices{};
+  g.unit = kept.unit, g.default_capacity = kept.default_capacity, g.undirected = kept.undirected;
+  g.pending = g.requested = true;
+  g.name = name, g.text = text;
+  g.attributes = graphml_edge_attributes(text);
+  // A first guess: an attribute named capacity, else the one with "speed" or "bandwidth" in
+  // its name that most edges give.
+  int best = -1;
+  for (int i = 0; i < static_cast<int>(g.attributes.size()); ++i) {
+    std::string lower = g.attributes[i].name;
+    for (char& c : lower) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    if (lower == "capacity") {
+      best = i;
+      break;
+    }
+    const bool likely = lower.find("speed") != std::string::npos || lower.find("bandwidth") != std::string::npos;
+    if (likely && (best < 0 || g.attributes[i].edges_with_value > g.attributes[best].edges_with_value)) best = i;
+  }
+  g.attribute = best;
+  nlohmann::json names = nlohmann::json::array();
+  for (const GraphmlAttribute& at : g.attributes) names.push_back({{"name", at.name}, {"edges", at.edges_with_value}});
+  std::printf("apportion:import-choices %s\n",
+              nlohmann::json({{"file", name}, {"attributes", names}, {"guess", best}})
+                  .dump(-1, ' ', false, nlohmann::json::error_handler_t::replace)
+                  .c_str());
+}
+
+void open_graphml_with_choices() {
+  App& a = app();
+  GraphmlChoices& g = a.graphml;
+  if (!g.pending) return;
+  GraphmlOptions opt;
+  opt.capacity_attribute = g.attribute >= 0 && g.attribute < static_cast<int>(g.attributes.size())
+                               ? g.attributes[g.attribute].name
+                               : std::string();
+  opt.default_capacity = g.default_capacity;
+  opt.undirected_as_pairs = g.undirected == 1;
+  opt.capacity_unit = g.unit;
+  if (g.value_unit > 0) {
+    const double to = link_speed_factor(g.unit);
+    if (to == 0) {
+      g.error = a.notice = "'" + g.unit + "' is not a link speed unit, so a link speed cannot be converted to it: "
+                           "choose bit/s, kbit/s, Mbit/s, Gbit/s or Tbit/s, or take the values as they are.";
+      report("open-failed");
+      return;
+    }
+    opt.capacity_scale = link_speed_factor(kLinkSpeedUnits[g.value_unit - 1]) / to;
+  }
+  LoadResult r = read_graphml(g.text, opt);
+  if (!r.ok()) {
+    a.open_errors.clear();
+    for (const Diagnostic& d : r.diagnostics.items)
+      if (d.severity == Severity::kError) a.open_errors.push_back(d.to_string());
+    g.pending = false;
+    report("open-failed");
+    return;
+  }
+  std::string warnings;
+  for (const Diagnostic& d : r.diagnostics.items)
+    if (d.severity == Severity::kWarning) warnings += (warnings.empty() ? "" : " ") + d.message + ".";
+  const std::string name = g.name;
+  g.pending = false;
+  g.text.clear();
+  set_document(std::move(*r.network), name, /*save=*/true);
+  if (!warnings.empty()) a.notice = "Opened " + name + ": " + warnings;
+  report("opened");
+}
+
 // Every button's action, by name: the UI and the test hook share this code.
 void action(const std::string& what) {
   App& a = app();
@@ -388,6 +459,23 @@ void action(const std::string& what) {
     report("state");
   } else if (what.rfind("auto-solve-pause-ms ", 0) == 0) {
     a.auto_solve_pause_ms = std::atof(what.c_str() + 20);
+  } else if (what.rfind("import-graphml ", 0) == 0) {
+    // "import-graphml ATTRIBUTE|- VALUE-UNIT|- NETWORK-UNIT DEFAULT shared|pairs": the dialog's Open
+    std::istringstream in(what.substr(15));
+    std::string attribute, value_unit, unit, mode;
+    double fallback = 1;
+    in >> attribute >> value_unit >> unit >> fallback >> mode;
+    GraphmlChoices& g = a.graphml;
+    g.attribute = -1;
+    for (int i = 0; i < static_cast<int>(g.attributes.size()); ++i)
+      if (g.attributes[i].name == attribute) g.attribute = i;
+    g.value_unit = 0;
+    for (int i = 0; i < static_cast<int>(std::size(kLinkSpeedUnits)); ++i)
+      if (value_unit == kLinkSpeedUnits[i]) g.value_unit = i + 1;
+    g.unit = unit == "-" ? "" : unit;
+    g.default_capacity = fallback;
+    g.undirected = mode == "pairs" ? 1 : 0;
+    open_graphml_with_choices();
   } else if (what == "matrix-dialog") {
     a.matrix_dialog_requested = true;
   } else if (what.rfind("matrix ", 0) == 0) {

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "app/document_history.h"
+#include "apportion/formats/network_graphml.h"
 #include "apportion/model/diagnostics.h"
 #include "apportion/model/network.h"
 #include "apportion/model/network_edit.h"
@@ -41,6 +42,21 @@ struct MatrixChoices {
   bool replace = false;
   std::string error;  // of the last attempt, shown in the dialog
 };
+
+// A GraphML file waiting for the "Open topology" dialog's choices (network_graphml.h).
+struct GraphmlChoices {
+  bool pending = false;
+  bool requested = false;  // open the dialog on the next frame
+  std::string name, text;
+  std::vector<GraphmlAttribute> attributes;
+  int attribute = -1;           // index into attributes; -1: none, every link gets the default
+  int value_unit = 0;           // 0: already in the network's unit; else kLinkSpeedUnits[value_unit - 1]
+  std::string unit = "Gbit/s";  // the network's capacity unit
+  double default_capacity = 1;
+  int undirected = 0;           // 0: one shared two-way arc, 1: two arcs
+  std::string error;            // why the last Open could not read it with these choices
+};
+inline constexpr const char* kLinkSpeedUnits[] = {"bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};
 
 struct App {
   GLFWwindow* window = nullptr;
@@ -80,6 +96,7 @@ struct App {
   bool first_frame_reported = false;
   MatrixChoices matrix;
   bool matrix_dialog_requested = false;  // opened by the test hook, as by its button
+  GraphmlChoices graphml;
 };
 
 App& app();
@@ -118,6 +135,11 @@ void action(const std::string& what);
 // Adds the demands app().matrix describes, as one undoable edit; false (and matrix.error
 // set) when they cannot be added, with the document unchanged.
 bool add_matrix_demands();
+// A GraphML file arrived: keep it and ask how to read it (the "Open topology" dialog).
+void ask_graphml_choices(const std::string& name, const std::string& text);
+// Reads the waiting GraphML file with app().graphml's choices and opens it (warnings in the
+// notice), or shows why not; the current document stays when it fails.
+void open_graphml_with_choices();
 
 template <class Change>
 void edit(const std::string& what, bool affects_solve, Change&& change) {

@@ -232,6 +232,10 @@ EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
     apportion::web::report("open-failed");
     return;
   }
+  if (!p.graphml.empty() && p.source == "file") {  // ask which attribute holds capacity, in what unit
+    apportion::web::ask_graphml_choices(p.name, p.graphml);
+    return;
+  }
   const std::string label = p.source == "link" ? "from a share link" : p.source == "autosave" ? "autosaved" : p.name;
   apportion::web::set_document(std::move(*p.loaded.network), label, /*save=*/p.source != "autosave");
   apportion::web::report("opened");

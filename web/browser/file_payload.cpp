@@ -63,7 +63,7 @@ Payload read_payload(const std::string& payload_json) {
     }
     p.name = name;
     if (ends_with(name, ".json")) p.loaded = read_network_json(text);
-    else if (ends_with(name, ".graphml") || ends_with(name, ".xml")) p.loaded = read_graphml(text);
+    else if (ends_with(name, ".graphml") || ends_with(name, ".xml")) p.loaded = read_graphml(text), p.graphml = text;
     else if (ends_with(name, ".max") || ends_with(name, ".min") || ends_with(name, ".dimacs")) p.loaded = read_dimacs(text);
     else p.loaded.diagnostics.error("file", name, "", "unknown file type (json, csv, max, min, dimacs, graphml)");
     return p;

@@ -13,7 +13,8 @@ namespace apportion::web {
 struct Payload {
   std::string source;  // "file", "link" or "autosave"
   std::string name;    // the file name shown to the user
-  LoadResult loaded;
+  LoadResult loaded;   // GraphML: read with the default choices
+  std::string graphml; // a GraphML file's text, for the page to ask how to read it
 };
 
 Payload read_payload(const std::string& payload_json);

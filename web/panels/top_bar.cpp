@@ -129,12 +129,63 @@ void matrix_dialog() {
   ImGui::EndPopup();
 }
 
+// How to read a GraphML topology: which edge attribute is the capacity, in what unit, what
+// links without it get, and how undirected links become arcs (network_graphml.h).
+void graphml_dialog() {
+  App& a = app();
+  GraphmlChoices& g = a.graphml;
+  if (g.requested) ImGui::OpenPopup("Open topology"), g.requested = false;
+  ImGui::SetNextWindowSize(ImVec2(520, 0), ImGuiCond_Appearing);
+  if (!ImGui::BeginPopupModal("Open topology", nullptr, ImGuiWindowFlags_NoSavedSettings)) return;
+  if (!g.pending) {
+    ImGui::CloseCurrentPopup();
+    ImGui::EndPopup();
+    return;
+  }
+  ImGui::TextWrapped("%s: how should its links' capacities be read?", g.name.c_str());
+  std::string current = g.attribute >= 0 ? g.attributes[g.attribute].name : "(none: every link gets the default)";
+  ImGui::SetNextItemWidth(260);
+  if (ImGui::BeginCombo("capacity from", current.c_str())) {
+    if (ImGui::Selectable("(none: every link gets the default)", g.attribute < 0)) g.attribute = -1;
+    for (int i = 0; i < static_cast<int>(g.attributes.size()); ++i) {
+      char label[300];
+      std::snprintf(label, sizeof label, "%s (%d links)", g.attributes[i].name.c_str(), g.attributes[i].edges_with_value);
+      if (ImGui::Selectable(label, g.attribute == i)) g.attribute = i;
+    }
+    ImGui::EndCombo();
+  }
+  if (g.attribute >= 0) {
+    const char* units[] = {"already in the network's unit", "bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};
+    ImGui::SetNextItemWidth(260);
+    ImGui::Combo("its values are in", &g.value_unit, units, IM_ARRAYSIZE(units));
+  }
+  char unit[64];
+  std::snprintf(unit, sizeof unit, "%s", g.unit.c_str());
+  ImGui::SetNextItemWidth(260);
+  if (ImGui::InputText("network's capacity unit", unit, sizeof unit)) g.unit = unit;
+  ImGui::SetNextItemWidth(260);
+  ImGui::InputDouble("capacity of links without it", &g.default_capacity, 0, 0, "%.6g");
+  ImGui::RadioButton("an undirected link is one arc shared by both directions", &g.undirected, 0);
+  ImGui::RadioButton("an undirected link is two arcs, one per direction", &g.undirected, 1);
+  if (!g.error.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::TextWrapped("%s", g.error.c_str());
+    ImGui::PopStyleColor();
+  }
+  if (ImGui::Button("Open")) open_graphml_with_choices();
+  ImGui::SameLine();
+  if (ImGui::Button("Cancel") || ImGui::IsKeyPressed(ImGuiKey_Escape)) g.pending = false, g.text.clear();
+  if (!g.pending) ImGui::CloseCurrentPopup();
+  ImGui::EndPopup();
+}
+
 }  // namespace
 
 void draw_toolbar() {
   App& a = app();
   const bool solved = current_result() != nullptr;
   if (ImGui::Button("Open network...")) action("open");
+  graphml_dialog();
   ImGui::SameLine();
   if (ImGui::Button("Save network")) action("save-network");
   ImGui::SameLine();
