@@ -1,6 +1,9 @@
 // GraphML import through pugixml; see network_graphml.h.
 #include "apportion/formats/network_graphml.h"
 
+#include <algorithm>
+#include <cmath>
+
 #include <pugixml.hpp>
 #include <unordered_map>
 
@@ -9,6 +12,62 @@
 #include "apportion/model/validation.h"
 
 namespace apportion {
+
+namespace {
+
+// Longitude and latitude as read (x = longitude, y = -latitude, in degrees) onto the
+// equidistant cylindrical projection with the mean latitude as its standard parallel:
+// x = longitude cos(mean latitude), y = -latitude (J. P. Snyder, "Map Projections: A Working
+// Manual", USGS Professional Paper 1395, 1987, section 12 -- from memory), so that east-west
+// distances are not stretched by 1 / cos(latitude) as raw degrees are. Then nodes without a
+// position are put beside their placed neighbours (their mean, spread on a small circle),
+// repeatedly, so that a few missing coordinates do not pull the drawing apart; nodes with no
+// placed node near them stay for the automatic layout.
+void place_geographically(Network& net, double mean_latitude, Diagnostics& d) {
+  const double squeeze = std::cos(mean_latitude * 3.14159265358979323846 / 180.0);
+  double lo_x = 0, hi_x = 0, lo_y = 0, hi_y = 0;
+  bool first = true;
+  for (Node& v : net.nodes) {
+    if (!v.x || !v.y) continue;
+    *v.x *= squeeze;
+    lo_x = first ? *v.x : std::min(lo_x, *v.x), hi_x = first ? *v.x : std::max(hi_x, *v.x);
+    lo_y = first ? *v.y : std::min(lo_y, *v.y), hi_y = first ? *v.y : std::max(hi_y, *v.y);
+    first = false;
+  }
+  const double spread = 0.03 * std::max({hi_x - lo_x, hi_y - lo_y, 1e-6});
+  std::vector<std::vector<int>> near(net.node_count());
+  for (const Arc& a : net.arcs)
+    if (a.from >= 0 && a.to >= 0) near[a.from].push_back(a.to), near[a.to].push_back(a.from);
+  int placed_here = 0, left = 0;
+  for (bool progress = true; progress;) {
+    progress = false;
+    std::vector<std::pair<int, std::pair<double, double>>> now;
+    for (int v = 0; v < net.node_count(); ++v) {
+      if (net.nodes[v].x && net.nodes[v].y) continue;
+      double sx = 0, sy = 0;
+      int n = 0;
+      for (int u : near[v])
+        if (net.nodes[u].x && net.nodes[u].y) sx += *net.nodes[u].x, sy += *net.nodes[u].y, ++n;
+      if (n == 0) continue;
+      // A point on a small circle, turned by the node's index, so that nodes beside the
+      // same neighbours do not land on one another (golden angle: common practice, no source).
+      const double turn = 2.39996322972865332 * (placed_here + static_cast<int>(now.size()) + 1);
+      now.push_back({v, {sx / n + spread * std::cos(turn), sy / n + spread * std::sin(turn)}});
+    }
+    for (const auto& [v, xy] : now) net.nodes[v].x = xy.first, net.nodes[v].y = xy.second;
+    placed_here += static_cast<int>(now.size());
+    progress = !now.empty();
+  }
+  for (const Node& v : net.nodes) left += !(v.x && v.y);
+  if (placed_here > 0)
+    d.warning("file", "", "Longitude",
+              std::to_string(placed_here) + " nodes have no coordinates; they are drawn beside their neighbours");
+  if (left > 0)
+    d.warning("file", "", "Longitude",
+              std::to_string(left) + " nodes have no coordinates and no placed neighbour; the automatic layout places them");
+}
+
+}  // namespace
 
 LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) {
   LoadResult result;
@@ -63,6 +122,8 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
     return v;
   };
 
+  int geographic = 0;  // nodes placed by Longitude and Latitude
+  double latitude_sum = 0.0;
   for (pugi::xml_node node : graph.children("node")) {
     if (net.node_count() >= SizeLimits::kMaxNodes) {
       d.error("file", "", "nodes", "more nodes than the size limit");
@@ -80,7 +141,7 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
     if (!v.x && !v.y) {
       auto lon = number(values, "Longitude", "node", v.id);
       auto lat = number(values, "Latitude", "node", v.id);
-      if (lon && lat) v.x = *lon, v.y = -*lat;
+      if (lon && lat) v.x = *lon, v.y = -*lat, ++geographic, latitude_sum += *lat;
     }
     if (!v.id.empty() && !index.emplace(v.id, net.node_count()).second) {
       d.error("node", v.id, "id", "duplicate id");
@@ -133,6 +194,7 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
                   options.capacity_attribute + "' attribute; they got the default capacity " +
                   format_number(options.default_capacity));
   if (!options.capacity_unit.empty()) net.units.capacity = options.capacity_unit;
+  if (geographic > 0) place_geographically(net, latitude_sum / geographic, d);
   d.append(validate(net));
   if (!d.has_errors()) result.network = std::move(net);
   return result;

@@ -4,7 +4,9 @@
 // <key id attr.name for>; Apportion maps them by attr.name:
 //   capacity  (name chosen by the caller, default "capacity"): arc capacity;
 //   cost, transit (optional) on edges; label or name, x and y on nodes; Longitude/Latitude
-//   are taken as x and -y when x/y are absent (common in published topology files).
+//   (common in published topology files) when x/y are absent, drawn on the equidistant
+//   cylindrical projection at the mean latitude, with nodes that lack them placed beside
+//   their neighbours (place_geographically in the .cpp).
 // An edge without the capacity attribute gets `default_capacity` and one warning says how
 // many did. Attribute values are multiplied by `capacity_scale` (a link speed in bit/s read
 // into Gbit/s: 1e-9; see link_speed_factor), and `capacity_unit`, when given, becomes the

@@ -1,6 +1,7 @@
 // CSV tables, DIMACS and GraphML: round trips keep what the target can hold, and bad files
 // give a clear error and no network.
 #include <catch2/catch.hpp>
+#include <cmath>
 
 #include "apportion/flow/max_flow.h"
 #include "apportion/formats/csv_table.h"
@@ -210,8 +211,13 @@ TEST_CASE("GraphML: keys map to capacity, labels and positions", "[graphml]") {
   REQUIRE(r.ok());
   const Network& n = *r.network;
   CHECK(n.nodes[0].label == "Alpha");
-  CHECK(*n.nodes[0].x == 10);
+  // Equidistant cylindrical projection with the mean latitude (50, the only placed node) as
+  // the standard parallel: x = 10 cos 50 degrees (Snyder 1987; the value by hand).
+  CHECK_THAT(*n.nodes[0].x, Catch::Matchers::WithinRel(10 * std::cos(50 * 3.14159265358979323846 / 180), 1e-15));
   CHECK(*n.nodes[0].y == -50);
+  // b and c have no coordinates: b goes beside a, then c beside b.
+  REQUIRE((n.nodes[1].x && n.nodes[1].y && n.nodes[2].x && n.nodes[2].y));
+  CHECK(std::abs(*n.nodes[1].y + 50) < 1.0);
   REQUIRE(n.arc_count() == 2);
   CHECK(n.arcs[0].capacity == 40);
   CHECK(n.arcs[0].shared_two_way);
