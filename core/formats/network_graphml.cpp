@@ -188,7 +188,11 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
       net.arcs.push_back(std::move(a));
     }
   }
-  if (defaulted > 0)
+  if (defaulted > 0 && options.capacity_attribute.empty())
+    d.warning("file", "", "capacity",
+              "no capacity attribute was chosen: all " + std::to_string(count) + " edges got the default capacity " +
+                  format_number(options.default_capacity));
+  else if (defaulted > 0)
     d.warning("file", "", options.capacity_attribute,
               std::to_string(defaulted) + " of " + std::to_string(count) + " edges have no '" +
                   options.capacity_attribute + "' attribute; they got the default capacity " +
