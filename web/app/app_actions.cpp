@@ -21,6 +21,7 @@
 #include "apportion/results/multiflow_result_import.h"
 #include "apportion/results/network_svg.h"
 #include "browser/browser_bridge.h"
+#include "panels/panels.h"
 
 namespace apportion::web {
 
@@ -91,6 +92,7 @@ void report(const char* event) { std::printf("apportion:%s %s\n", event, state_j
 
 void after_edit(bool affects_solve) {
   App& a = app();
+  ++a.doc_changes;
   clamp_selection();
   autosave(write_network_json(a.doc));
   if (!affects_solve) return;
@@ -108,6 +110,7 @@ void set_document(Network net, const std::string& name, bool save) {
   for (const Node& v : net.nodes) placed = placed && v.x && v.y;
   if (!placed) auto_layout(net);
   a.doc = std::move(net);
+  ++a.doc_changes;
   a.doc_name = name;
   a.open_errors.clear();
   a.history.clear();
@@ -205,6 +208,7 @@ void receive_solve_result(int id, const std::string& text) {
       a.previous_shares[a.result_doc_ids[k]] = a.result.demands[k].share;
   }
   a.result = std::move(r);
+  ++a.result_changes;
   a.result_revision = a.solve.revision;
   a.result_doc_ids.clear();
   for (const Demand& d : a.solve.doc.demands) a.result_doc_ids.push_back(d.id);
@@ -221,6 +225,7 @@ void receive_solve_failure(int id, const std::string& message) {
   a.result = MultiflowResult{};
   a.result.status = SolveStatus::kNumericalDifficulty;
   a.result.message = "the solver stopped: " + message;
+  ++a.result_changes;
   a.result_revision = a.solve.revision;
   report("solved");
 }
@@ -476,6 +481,29 @@ void action(const std::string& what) {
     g.default_capacity = fallback;
     g.undirected = mode == "pairs" ? 1 : 0;
     open_graphml_with_choices();
+  } else if (what.rfind("view ", 0) == 0) {
+    // "view demands|shares filter TEXT", "... sort COLUMN asc|desc|none", "... report"
+    std::istringstream in(what.substr(5));
+    std::string table, verb, rest;
+    in >> table >> verb;
+    std::getline(in >> std::ws, rest);
+    TableView& v = table == "shares" ? a.share_view : a.demand_view;
+    if (verb == "filter") v.filter = rest;
+    if (verb == "sort") {
+      std::istringstream r(rest);
+      std::string direction;
+      r >> v.column >> direction;
+      v.descending = direction == "desc";
+      if (direction == "none") v.column = -1;
+    }
+    const std::vector<int>& rows = table == "shares" ? share_rows() : demand_rows();
+    nlohmann::json first = nlohmann::json::array();
+    for (std::size_t i = 0; i < rows.size() && i < 5; ++i) first.push_back(a.doc.demands[rows[i]].id);
+    std::printf("apportion:table %s\n", nlohmann::json({{"table", table}, {"rows", rows.size()}, {"first", first}})
+                                            .dump(-1, ' ', false, nlohmann::json::error_handler_t::replace)
+                                            .c_str());
+  } else if (what.rfind("tab ", 0) == 0) {
+    a.right_tab = std::atoi(what.c_str() + 4);
   } else if (what == "matrix-dialog") {
     a.matrix_dialog_requested = true;
   } else if (what.rfind("matrix ", 0) == 0) {

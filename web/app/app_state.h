@@ -58,6 +58,14 @@ struct GraphmlChoices {
 };
 inline constexpr const char* kLinkSpeedUnits[] = {"bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};
 
+// How a long table is filtered and sorted (panels/table_rows.h); set by its filter box and
+// column headers, or by the test hook.
+struct TableView {
+  std::string filter;  // rows containing this text (id, label, origin, destination), any case
+  int column = -1;     // sorted by this column; -1: the document's order
+  bool descending = false;
+};
+
 struct App {
   GLFWwindow* window = nullptr;
   Network doc;
@@ -97,6 +105,9 @@ struct App {
   MatrixChoices matrix;
   bool matrix_dialog_requested = false;  // opened by the test hook, as by its button
   GraphmlChoices graphml;
+  long long doc_changes = 0;     // bumps on every edit, labels and positions included
+  long long result_changes = 0;  // bumps on every result received
+  TableView demand_view, share_view;
 };
 
 App& app();

@@ -1,6 +1,6 @@
 // The demands as an editable table: one row per demand, every cell an edit with undo,
-// origin and destination typed as node ids. Rows are clipped, so thousands of demands
-// scroll smoothly.
+// origin and destination typed as node ids. Rows are clipped, filtered and sorted
+// (table_rows.h), so tens of thousands of demands scroll smoothly.
 #include <imgui.h>
 
 #include <string>
@@ -9,8 +9,35 @@
 #include "apportion/model/number_text.h"
 #include "panels/field_editors.h"
 #include "panels/panels.h"
+#include "panels/table_rows.h"
 
 namespace apportion::web {
+
+const std::vector<int>& demand_rows() {
+  static RowOrder order;
+  const Network& net = app().doc;
+  auto amount = [&](int k) { return net.demands[k].amount ? *net.demands[k].amount : 1e300; };  // max sorts last
+  return order.update(
+      {app().doc_changes, 0}, static_cast<int>(net.demands.size()), app().demand_view,
+      [&](int k, const std::string& needle) {
+        const Demand& d = net.demands[k];
+        for (const std::string* s : {&d.id, &d.label, &net.nodes[d.origin].id, &net.nodes[d.destination].id})
+          if (lowered(*s).find(needle) != std::string::npos) return true;
+        return false;
+      },
+      [&](int x, int y, int column) {
+        const Demand &p = net.demands[x], &q = net.demands[y];
+        switch (column) {
+          case 0: return p.id < q.id;
+          case 1: return net.nodes[p.origin].id < net.nodes[q.origin].id;
+          case 2: return net.nodes[p.destination].id < net.nodes[q.destination].id;
+          case 3: return amount(x) < amount(y);
+          case 4: return p.weight < q.weight;
+          case 5: return p.label < q.label;
+        }
+        return false;
+      });
+}
 
 void draw_demand_table() {
   App& a = app();
@@ -26,8 +53,13 @@ void draw_demand_table() {
   }
   ImGui::SameLine();
   ImGui::TextDisabled("or use the Add demand tool: click its origin, then its destination");
+  filter_box("##demand-filter", a.demand_view, "filter: id, label, origin or destination");
+  const std::vector<int>& rows = demand_rows();
+  ImGui::SameLine();
+  ImGui::TextDisabled("%zu of %zu demands; click a header to sort", rows.size(), a.doc.demands.size());
   const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_ScrollY |
-                                ImGuiTableFlags_Resizable | ImGuiTableFlags_SizingStretchProp;
+                                ImGuiTableFlags_Resizable | ImGuiTableFlags_SizingStretchProp |
+                                ImGuiTableFlags_Sortable | ImGuiTableFlags_SortTristate;
   if (!ImGui::BeginTable("demand-table", 7, flags)) return;
   ImGui::TableSetupScrollFreeze(0, 1);
   ImGui::TableSetupColumn("id");
@@ -36,13 +68,15 @@ void draw_demand_table() {
   ImGui::TableSetupColumn("amount (empty: max)");
   ImGui::TableSetupColumn("weight");
   ImGui::TableSetupColumn("label");
-  ImGui::TableSetupColumn("", ImGuiTableColumnFlags_WidthFixed);
+  ImGui::TableSetupColumn("", ImGuiTableColumnFlags_WidthFixed | ImGuiTableColumnFlags_NoSort);
   ImGui::TableHeadersRow();
+  take_sort_specs(a.demand_view);
   ImGuiListClipper clipper;
-  clipper.Begin(static_cast<int>(a.doc.demands.size()));
+  clipper.Begin(static_cast<int>(rows.size()));
   int remove = -1;
   while (clipper.Step()) {
-    for (int k = clipper.DisplayStart; k < clipper.DisplayEnd; ++k) {
+    for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
+      const int k = rows[row];
       const Demand& dm = a.doc.demands[k];
       ImGui::PushID(k);
       ImGui::TableNextRow();

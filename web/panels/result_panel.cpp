@@ -10,8 +10,47 @@
 
 #include "app/app_state.h"
 #include "panels/panels.h"
+#include "panels/table_rows.h"
 
 namespace apportion::web {
+
+// The change of demand k since the previous result: NaN when it is new or none is known.
+double share_change(int k) {
+  const App& a = app();
+  if (a.previous_shares.empty() || k >= static_cast<int>(a.result.demands.size())) return std::nan("");
+  auto before = a.previous_shares.find(a.doc.demands[k].id);
+  return before == a.previous_shares.end() ? std::nan("") : a.result.demands[k].share - before->second;
+}
+
+const std::vector<int>& share_rows() {
+  static RowOrder order;
+  const App& a = app();
+  const Network& net = a.doc;
+  const MultiflowResult& r = a.result;
+  const int count = result_is_current() ? static_cast<int>(std::min(net.demands.size(), r.demands.size())) : 0;
+  // Rows change with the result as well as with the document.
+  return order.update(
+      {a.doc_changes, a.result_changes}, count, a.share_view,
+      [&](int k, const std::string& needle) {
+        const Demand& d = net.demands[k];
+        for (const std::string* s : {&d.id, &d.label, &net.nodes[d.origin].id, &net.nodes[d.destination].id})
+          if (lowered(*s).find(needle) != std::string::npos) return true;
+        return false;
+      },
+      [&](int x, int y, int column) {
+        const DemandShare &p = r.demands[x], &q = r.demands[y];
+        auto change = [](double c) { return std::isnan(c) ? -1e300 : c; };
+        switch (column) {
+          case 0: return net.demands[x].id < net.demands[y].id;
+          case 1: return p.share < q.share;
+          case 2: return p.percent_of_amount < q.percent_of_amount;
+          case 3: return p.tier < q.tier;
+          case 4: return p.binding_arcs.size() < q.binding_arcs.size();
+          case 5: return change(share_change(x)) < change(share_change(y));
+        }
+        return false;
+      });
+}
 
 void draw_result_panel() {
   App& a = app();
@@ -61,8 +100,13 @@ void draw_result_panel() {
 
   const bool have_change = !a.previous_shares.empty();
   if (have_change) ImGui::TextDisabled("change: since the result before \"%s\"", a.result_edit.c_str());
+  filter_box("##share-filter", a.share_view, "filter: id, label, origin or destination");
+  const std::vector<int>& rows = share_rows();
+  ImGui::SameLine();
+  ImGui::TextDisabled("%zu of %zu demands; click a header to sort", rows.size(), r.demands.size());
   const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_Resizable |
-                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_SizingStretchProp;
+                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_SizingStretchProp | ImGuiTableFlags_Sortable |
+                                ImGuiTableFlags_SortTristate;
   if (!ImGui::BeginTable("shares", have_change ? 6 : 5, flags)) return;
   ImGui::TableSetupScrollFreeze(0, 1);
   ImGui::TableSetupColumn("Demand");
@@ -72,10 +116,12 @@ void draw_result_panel() {
   ImGui::TableSetupColumn("Bound by");
   if (have_change) ImGui::TableSetupColumn("Change");
   ImGui::TableHeadersRow();
+  take_sort_specs(a.share_view);
   ImGuiListClipper clipper;
-  clipper.Begin(static_cast<int>(std::min(net.demands.size(), r.demands.size())));
+  clipper.Begin(static_cast<int>(rows.size()));
   while (clipper.Step()) {
-    for (int k = clipper.DisplayStart; k < clipper.DisplayEnd; ++k) {
+    for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
+      const int k = rows[row];
       const DemandShare& d = r.demands[k];
       ImGui::TableNextRow();
       ImGui::TableNextColumn();
@@ -107,7 +153,7 @@ void draw_result_panel() {
         if (before == a.previous_shares.end()) {
           ImGui::TextUnformatted("new");
         } else {
-          const double delta = d.share - before->second;
+          const double delta = share_change(k);
           if (std::abs(delta) <= 1e-9 * std::max(1.0, std::abs(before->second))) ImGui::TextUnformatted("=");
           else ImGui::Text("%+.6g", delta);
         }
