@@ -19,12 +19,7 @@ const std::vector<int>& demand_rows() {
   auto amount = [&](int k) { return net.demands[k].amount ? *net.demands[k].amount : 1e300; };  // max sorts last
   return order.update(
       {app().doc_changes, 0}, static_cast<int>(net.demands.size()), app().demand_view,
-      [&](int k, const std::string& needle) {
-        const Demand& d = net.demands[k];
-        for (const std::string* s : {&d.id, &d.label, &net.nodes[d.origin].id, &net.nodes[d.destination].id})
-          if (lowered(*s).find(needle) != std::string::npos) return true;
-        return false;
-      },
+      [&](int k, const std::string& needle) { return demand_matches(net, k, needle); },
       [&](int x, int y, int column) {
         const Demand &p = net.demands[x], &q = net.demands[y];
         switch (column) {

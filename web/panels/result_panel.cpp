@@ -31,12 +31,7 @@ const std::vector<int>& share_rows() {
   // Rows change with the result as well as with the document.
   return order.update(
       {a.doc_changes, a.result_changes}, count, a.share_view,
-      [&](int k, const std::string& needle) {
-        const Demand& d = net.demands[k];
-        for (const std::string* s : {&d.id, &d.label, &net.nodes[d.origin].id, &net.nodes[d.destination].id})
-          if (lowered(*s).find(needle) != std::string::npos) return true;
-        return false;
-      },
+      [&](int k, const std::string& needle) { return demand_matches(net, k, needle); },
       [&](int x, int y, int column) {
         const DemandShare &p = r.demands[x], &q = r.demands[y];
         auto change = [](double c) { return std::isnan(c) ? -1e300 : c; };

@@ -21,6 +21,14 @@ inline std::string lowered(std::string s) {
   return s;
 }
 
+// Whether demand k's id, label, origin or destination id contains the lower-case needle.
+inline bool demand_matches(const Network& net, int k, const std::string& needle) {
+  const Demand& d = net.demands[k];
+  for (const std::string* s : {&d.id, &d.label, &net.nodes[d.origin].id, &net.nodes[d.destination].id})
+    if (lowered(*s).find(needle) != std::string::npos) return true;
+  return false;
+}
+
 class RowOrder {
  public:
   // `data`: counters that change with what the rows show. `match(k, needle)`: row k contains the lower-case needle; `less(a, b, column)`: the order
