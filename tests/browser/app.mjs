@@ -535,6 +535,28 @@ try {
     await b.close();
   }
 
+  // 10e. More demands than the chart has pixels: the shares chart summarises, one bar per
+  // pixel column, instead of one bar per demand.
+  {
+    const b = await browser();
+    await b.page.goto(`${base}/apportion.html`);
+    await b.next('solved');
+    const opened = b.next('solved');
+    await openFile(b, writeTmp('five-by-five.json', grid(5, 1, 9, 'Five by five', 5)));
+    await opened;
+    const solved = b.next('solved', 120000);
+    await b.act('matrix uniform all 1 1 1 replace');
+    const r = await solved;
+    await b.act('tab 3');
+    await b.page.waitForTimeout(400);
+    const st = await b.state();
+    check(`charts: ${r && r.shares.length} demands drawn as ${st.chart_bars} bars, one per pixel column`,
+          r && r.status === 'optimal' && r.shares.length === 600 && st.chart_bars > 100 && st.chart_bars < 600,
+          JSON.stringify([r && r.status, st.chart_bars]));
+    await b.page.screenshot({ path: path.join(artefacts, 'chart-600-demands.png') });
+    await b.close();
+  }
+
   // 11. A broken share link shows an error and keeps the demo.
   {
     const b = await browser();

@@ -47,7 +47,7 @@ std::string state_json(const char* event) {
                       {"solving", a.solve.running}, {"nodes", a.doc.node_count()}, {"arcs", a.doc.arc_count()},
                       {"demands", a.doc.demands.size()}, {"undo", a.history.undo_name()},
                       {"redo", a.history.redo_name()}, {"other_tab_saved", a.other_tab_saved},
-                      {"auto_solve", a.auto_solve}};
+                      {"auto_solve", a.auto_solve}, {"chart_bars", a.chart_bars}};
   nlohmann::json shares = nlohmann::json::array();
   if (result_is_current())
     for (const auto& d : a.result.demands) shares.push_back(d.share);

@@ -108,6 +108,7 @@ struct App {
   long long doc_changes = 0;     // bumps on every edit, labels and positions included
   long long result_changes = 0;  // bumps on every result received
   TableView demand_view, share_view;
+  int chart_bars = 0;  // bars the shares chart drew last (fewer than demands: summarised)
 };
 
 App& app();

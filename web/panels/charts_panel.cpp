@@ -51,22 +51,43 @@ void draw_charts() {
   // 1. Normalised shares, sorted, coloured by tier.
   ImGui::TextUnformatted("Normalised shares (share / weight), smallest first; colour changes with the tier");
   const int K = static_cast<int>(std::min(net.demands.size(), r->demands.size()));
-  std::vector<int> order(K);
-  std::iota(order.begin(), order.end(), 0);
-  std::stable_sort(order.begin(), order.end(), [&](int i, int j) { return r->demands[i].normalised < r->demands[j].normalised; });
+  // The sort is kept until the next result: 40,000 demands take milliseconds to sort.
+  static std::vector<int> order;
+  static long long sorted_for = -1;
+  if (sorted_for != a.result_changes || static_cast<int>(order.size()) != K) {
+    order.resize(K);
+    std::iota(order.begin(), order.end(), 0);
+    std::stable_sort(order.begin(), order.end(),
+                     [&](int i, int j) { return r->demands[i].normalised < r->demands[j].normalised; });
+    sorted_for = a.result_changes;
+  }
   double top = 0;
   for (int k : order) top = std::max(top, r->demands[k].normalised);
   ImVec2 p0, p1;
   if (K > 0 && top > 0 && chart_frame("shares-chart", 200 * s, p0, p1)) {
-    const float w = (p1.x - p0.x) / K, h = p1.y - p0.y - 4 * s;
-    int hovered = -1;
-    for (int i = 0; i < K; ++i) {
-      const DemandShare& d = r->demands[order[i]];
+    // More demands than pixels: one bar per pixel column, the largest share of the demands
+    // it covers (the shares are sorted, so the staircase keeps its shape), and the hover
+    // names the range. Fewer: one bar per demand.
+    const int bars = std::max(1, std::min(K, static_cast<int>(p1.x - p0.x)));
+    a.chart_bars = bars;
+    const float w = (p1.x - p0.x) / bars, h = p1.y - p0.y - 4 * s;
+    int hovered = -1, hovered_first = -1;
+    for (int b = 0; b < bars; ++b) {
+      const int first = static_cast<int>(static_cast<long long>(b) * K / bars);
+      const int last = static_cast<int>(static_cast<long long>(b + 1) * K / bars) - 1;
+      const DemandShare& d = r->demands[order[last]];
       const float bar = static_cast<float>(d.normalised / top) * h;
-      const ImVec2 a0(p0.x + i * w + (w > 3 ? 1 : 0), p1.y - bar), a1(p0.x + (i + 1) * w, p1.y);
+      const ImVec2 a0(p0.x + b * w + (w > 3 ? 1 : 0), p1.y - bar), a1(p0.x + (b + 1) * w, p1.y);
       dl->AddRectFilled(a0, a1, kTierColours[std::max(0, d.tier) % 2]);
-      if (order[i] == a.view.filter_demand) dl->AddRect(ImVec2(a0.x - 1, a0.y - 1), a1, IM_COL32(255, 255, 255, 255), 0, 0, 2 * s);
-      if (mouse.x >= a0.x - (w > 3 ? 1 : 0) && mouse.x < a1.x && mouse.y >= p0.y && mouse.y <= p1.y) hovered = order[i];
+      if (bars == K && order[b] == a.view.filter_demand)
+        dl->AddRect(ImVec2(a0.x - 1, a0.y - 1), a1, IM_COL32(255, 255, 255, 255), 0, 0, 2 * s);
+      if (mouse.x >= a0.x - (w > 3 ? 1 : 0) && mouse.x < a1.x && mouse.y >= p0.y && mouse.y <= p1.y)
+        hovered = order[last], hovered_first = order[first];
+    }
+    if (bars < K && hovered >= 0 && ImGui::IsItemHovered()) {
+      ImGui::SetTooltip("%d demands to a pixel here: normalised shares %.6g to %.6g", (K + bars - 1) / bars,
+                        r->demands[hovered_first].normalised, r->demands[hovered].normalised);
+      hovered = -1;
     }
     for (const Tier& t : r->tiers) {  // tier levels as dashed guides
       const float y = p1.y - static_cast<float>(t.level / top) * h;
