@@ -172,25 +172,54 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     }
   }
 
-  // Nodes; labels stay the same size on screen, and are left out when too dense to read.
-  const bool dense = net.node_count() > 0 &&
-                     avail.x * avail.y / net.node_count() < 2500 * ui_scale * ui_scale * (1.0f / (view.zoom * view.zoom));
+  // Nodes, then their labels: the same size on screen at any zoom, the most connected nodes
+  // first, and a label that would overlap one already drawn is left out (hover, select or
+  // search a node to read it), so that 200-800 nodes stay readable where they crowd.
   std::vector<char> node_selected(net.nodes.size(), 0);
   for (int v : selection.nodes)
     if (v >= 0 && v < net.node_count()) node_selected[v] = 1;
+  auto visible = [&](const ImVec2& c) {
+    return c.x >= origin.x - 50 && c.x <= origin.x + avail.x + 50 && c.y >= origin.y - 50 && c.y <= origin.y + avail.y + 50;
+  };
+  std::vector<int> degree(net.nodes.size(), 0);
+  for (const Arc& e : net.arcs)
+    if (e.from >= 0 && e.to >= 0) ++degree[e.from], ++degree[e.to];
+  std::vector<int> by_importance;
   for (int v = 0; v < net.node_count(); ++v) {
     const ImVec2 c = at(v);
-    if (c.x < origin.x - 50 || c.x > origin.x + avail.x + 50 || c.y < origin.y - 50 || c.y > origin.y + avail.y + 50)
-      continue;
+    if (!visible(c)) continue;
     const bool selected = node_selected[v];
     const bool match = v < static_cast<int>(highlight.size()) && highlight[v];
     if (match) dl->AddCircle(c, node_r + 6 * ui_scale, kMatch, 0, 2.5f * ui_scale);
     if (selected || v == view.pending_from) dl->AddCircleFilled(c, node_r + 3 * ui_scale, kSelected);
     dl->AddCircleFilled(c, node_r, kInk);
-    if (!dense || selected || match || v == hover_node) {
-      const std::string& label = net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
-      dl->AddText(ImVec2(c.x + 9 * ui_scale, c.y - 8 * ui_scale), kInk, label.c_str());
-    }
+    by_importance.push_back(v);
+  }
+  auto must_show = [&](int v) {
+    return node_selected[v] || v == hover_node || (v < static_cast<int>(highlight.size()) && highlight[v]);
+  };
+  std::stable_sort(by_importance.begin(), by_importance.end(), [&](int x, int y) {
+    if (must_show(x) != must_show(y)) return must_show(x);
+    return degree[x] > degree[y];
+  });
+  // Cells of the canvas a label already covers.
+  const float cell = 6 * ui_scale;
+  const int cols = static_cast<int>(avail.x / cell) + 2, rows = static_cast<int>(avail.y / cell) + 2;
+  std::vector<char> taken(static_cast<std::size_t>(cols) * rows, 0);
+  for (int v : by_importance) {
+    const ImVec2 c = at(v);
+    const std::string& label = net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
+    const ImVec2 pos(c.x + 9 * ui_scale, c.y - 8 * ui_scale), size = ImGui::CalcTextSize(label.c_str());
+    const int x0 = std::max(0, static_cast<int>((pos.x - origin.x) / cell)), y0 = std::max(0, static_cast<int>((pos.y - origin.y) / cell));
+    const int x1 = std::min(cols - 1, static_cast<int>((pos.x + size.x - origin.x) / cell));
+    const int y1 = std::min(rows - 1, static_cast<int>((pos.y + size.y - origin.y) / cell));
+    bool free = true;
+    for (int y = y0; y <= y1 && free; ++y)
+      for (int x = x0; x <= x1 && free; ++x) free = !taken[static_cast<std::size_t>(y) * cols + x];
+    if (!free && !must_show(v)) continue;
+    for (int y = y0; y <= y1; ++y)
+      for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = 1;
+    dl->AddText(pos, kInk, label.c_str());
   }
 
   // The mouse: a click, a move of the selected nodes, a selection box, or a new link.
