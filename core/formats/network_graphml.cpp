@@ -123,6 +123,7 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
   };
 
   int geographic = 0;  // nodes placed by Longitude and Latitude
+  std::unordered_map<int, std::pair<double, double>> lon_lat;  // node -> its coordinates
   double latitude_sum = 0.0;
   for (pugi::xml_node node : graph.children("node")) {
     if (net.node_count() >= SizeLimits::kMaxNodes) {
@@ -141,7 +142,7 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
     if (!v.x && !v.y) {
       auto lon = number(values, "Longitude", "node", v.id);
       auto lat = number(values, "Latitude", "node", v.id);
-      if (lon && lat) v.x = *lon, v.y = -*lat, ++geographic, latitude_sum += *lat;
+      if (lon && lat) v.x = *lon, v.y = -*lat, ++geographic, latitude_sum += *lat, lon_lat[net.node_count()] = {*lon, *lat};
     }
     if (!v.id.empty() && !index.emplace(v.id, net.node_count()).second) {
       d.error("node", v.id, "id", "duplicate id");
@@ -198,6 +199,24 @@ LoadResult read_graphml(const std::string& text, const GraphmlOptions& options) 
                   options.capacity_attribute + "' attribute; they got the default capacity " +
                   format_number(options.default_capacity));
   if (!options.capacity_unit.empty()) net.units.capacity = options.capacity_unit;
+  if (options.length_as != GraphmlOptions::Length::kNone) {
+    int without = 0;
+    for (Arc& a : net.arcs) {
+      auto p = lon_lat.find(a.from), q = lon_lat.find(a.to);
+      if (p == lon_lat.end() || q == lon_lat.end()) {
+        ++without;
+        continue;
+      }
+      const double km = great_circle_km(p->second.first, p->second.second, q->second.first, q->second.second);
+      if (options.length_as == GraphmlOptions::Length::kCost) a.cost = km;
+      else a.transit = km / options.speed;
+    }
+    if (options.length_as == GraphmlOptions::Length::kCost) net.units.cost = "km";
+    if (without > 0)
+      d.warning("file", "", "Longitude",
+                std::to_string(without) + " of " + std::to_string(net.arc_count()) +
+                    " arcs have an end without coordinates and got no length");
+  }
   if (geographic > 0) place_geographically(net, latitude_sum / geographic, d);
   d.append(validate(net));
   if (!d.has_errors()) result.network = std::move(net);
@@ -223,6 +242,14 @@ std::vector<GraphmlAttribute> graphml_edge_attributes(const std::string& text) {
       if (it != by_key.end() && *data.text().as_string()) ++out[it->second].edges_with_value;
     }
   return out;
+}
+
+double great_circle_km(double lon1, double lat1, double lon2, double lat2) {
+  constexpr double kRadian = 3.14159265358979323846 / 180.0, kEarthKm = 6371.0088;
+  const double dlat = (lat2 - lat1) * kRadian, dlon = (lon2 - lon1) * kRadian;
+  const double h = std::sin(dlat / 2) * std::sin(dlat / 2) +
+                   std::cos(lat1 * kRadian) * std::cos(lat2 * kRadian) * std::sin(dlon / 2) * std::sin(dlon / 2);
+  return 2 * kEarthKm * std::asin(std::min(1.0, std::sqrt(h)));
 }
 
 double link_speed_factor(const std::string& unit) {

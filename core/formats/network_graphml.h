@@ -27,7 +27,18 @@ struct GraphmlOptions {
   bool undirected_as_pairs = false;
   double capacity_scale = 1.0;
   std::string capacity_unit;  // empty: none set
+  // The great-circle length of each link between nodes with Longitude and Latitude, in km
+  // (haversine, mean Earth radius 6371.0088 km), as each arc's cost (unit "km") or as its
+  // transit time at `speed` km per time unit; links with an end without coordinates keep
+  // none, and a warning counts them.
+  enum class Length { kNone, kCost, kTransit } length_as = Length::kNone;
+  double speed = 1.0;
 };
+
+// The great-circle distance in km between two points given in degrees (haversine formula;
+// R. W. Sinnott, Sky and Telescope 68(2), 1984; mean Earth radius 6371.0088 km, IUGG -- from
+// memory).
+double great_circle_km(double lon1, double lat1, double lon2, double lat2);
 
 LoadResult read_graphml(const std::string& text, const GraphmlOptions& options = {});
 

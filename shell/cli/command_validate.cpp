@@ -21,6 +21,9 @@ Options:
                             kbit/s, Mbit/s, Gbit/s, Tbit/s), converted to the network's unit
   --unit U                  GraphML: the network's capacity unit (default with
                             --attribute-unit: Gbit/s); the default capacity is in it
+  --length-as cost|transit  GraphML: each link's great-circle length (km, from the nodes'
+                            Longitude and Latitude) as its cost, or as its transit time
+  --speed S                 GraphML: km per time unit for --length-as transit (default 1)
 
 Example:
   apportion validate demo-networks/harrowmere-fibre.json

@@ -86,6 +86,21 @@ LoadResult load_network(const std::string& path, const Args& args, OutputGuard& 
       }
       opt.capacity_scale = f / to;
     }
+    if (auto l = args.get("length-as")) {
+      if (*l != "cost" && *l != "transit") {
+        failed.diagnostics.error("option", "--length-as", "", "must be 'cost' or 'transit'");
+        return failed;
+      }
+      opt.length_as = *l == "cost" ? GraphmlOptions::Length::kCost : GraphmlOptions::Length::kTransit;
+    }
+    if (auto sp = args.get("speed")) {
+      auto v = parse_number(*sp);
+      if (!v || !(*v > 0)) {
+        failed.diagnostics.error("option", "--speed", "", "'" + *sp + "' is not a number > 0");
+        return failed;
+      }
+      opt.speed = *v;
+    }
     return read_graphml(text, opt);
   }
   failed.diagnostics.error("file", path, "", format.empty() ? "unknown file type; use --format json|csv|dimacs|graphml"

@@ -14,7 +14,7 @@ namespace apportion::cli {
 
 // Options every subcommand that reads a network accepts.
 inline const std::set<std::string> kLoaderOptions = {"format", "capacity-attribute", "default-capacity",
-                                                     "undirected", "attribute-unit", "unit"};
+                                                     "undirected", "attribute-unit", "unit", "length-as", "speed"};
 
 // Reads the file(s), protects them from being overwritten, and returns the load result.
 // On a read error the result holds a "file" diagnostic.

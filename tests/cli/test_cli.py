@@ -180,6 +180,15 @@ check("GraphML --attribute-unit: Mbit/s read into Gbit/s, the default in Gbit/s,
 r = run("convert", topo, "--to", "json", out, "--capacity-attribute", "speed", "--attribute-unit", "MB/s")
 check("GraphML --attribute-unit refuses a unit that is not a link speed", r.returncode == 2 and "'MB/s'" in r.stderr, r.stderr)
 
+geo = w("geo.graphml", """<graphml><key id="x" for="node" attr.name="Longitude"/><key id="y" for="node" attr.name="Latitude"/>
+<graph id="G"><node id="a"><data key="x">0</data><data key="y">0</data></node>
+<node id="b"><data key="x">1</data><data key="y">0</data></node><edge source="a" target="b"/></graph></graphml>""")
+r = run("convert", geo, "--to", "json", out, "--length-as", "cost")
+conv = json.load(open(out)) if r.returncode == 0 else {"arcs": [{}]}
+# One degree of the equator: 2 pi 6371.0088 / 360 km (derived by hand).
+check("GraphML --length-as cost: the great-circle length in km",
+      abs(conv["arcs"][0].get("cost", 0) - 111.19508) < 1e-4 and conv["units"]["cost"] == "km", r.stderr)
+
 # Killed mid-write: the output is the old file or the whole new one, never a part.
 import signal
 import time

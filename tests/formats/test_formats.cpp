@@ -268,6 +268,38 @@ TEST_CASE("GraphML: a link speed in bit/s read into Gbit/s, and the attributes l
   CHECK(graphml_edge_attributes("<not xml").empty());
 }
 
+TEST_CASE("GraphML: great-circle lengths as cost or transit", "[graphml]") {
+  // Derived by hand from the haversine formula with R = 6371.0088 km: one degree along the
+  // equator is 2 pi R / 360 = 111.19508 km; from the equator to a pole is pi R / 2.
+  const double degree = 2 * 3.14159265358979323846 * 6371.0088 / 360;
+  CHECK_THAT(great_circle_km(0, 0, 1, 0), Catch::Matchers::WithinRel(degree, 1e-12));
+  CHECK_THAT(great_circle_km(10, 0, 10, 90), Catch::Matchers::WithinRel(90 * degree, 1e-12));
+  CHECK_THAT(great_circle_km(-179.5, 0, 179.5, 0), Catch::Matchers::WithinRel(degree, 1e-9));  // across 180
+  const std::string text = R"(<graphml>
+  <key id="x" for="node" attr.name="Longitude"/><key id="y" for="node" attr.name="Latitude"/>
+  <graph id="G" edgedefault="directed">
+    <node id="a"><data key="x">0</data><data key="y">0</data></node>
+    <node id="b"><data key="x">1</data><data key="y">0</data></node>
+    <node id="c"/>
+    <edge source="a" target="b"/><edge source="b" target="c"/>
+  </graph>
+</graphml>)";
+  GraphmlOptions opt;
+  opt.length_as = GraphmlOptions::Length::kCost;
+  LoadResult r = read_graphml(text, opt);
+  REQUIRE(r.ok());
+  CHECK_THAT(*r.network->arcs[0].cost, Catch::Matchers::WithinRel(degree, 1e-12));
+  CHECK_FALSE(r.network->arcs[1].cost.has_value());  // c has no coordinates
+  CHECK(r.network->units.cost == "km");
+  bool counted = false;
+  for (const Diagnostic& x : r.diagnostics.items) counted |= x.message.find("1 of 2 arcs have an end without") == 0;
+  CHECK(counted);
+  opt.length_as = GraphmlOptions::Length::kTransit;
+  opt.speed = 100;  // km per time unit
+  r = read_graphml(text, opt);
+  CHECK_THAT(*r.network->arcs[0].transit, Catch::Matchers::WithinRel(degree / 100, 1e-12));
+}
+
 TEST_CASE("GraphML: broken XML and dangling edges are refused", "[graphml]") {
   CHECK(!read_graphml("<graphml><graph>").ok());
   CHECK(!read_graphml("<other/>").ok());

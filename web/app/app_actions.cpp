@@ -379,6 +379,15 @@ void open_graphml_with_choices() {
   opt.default_capacity = g.default_capacity;
   opt.undirected_as_pairs = g.undirected == 1;
   opt.capacity_unit = g.unit;
+  opt.length_as = g.length_as == 1   ? GraphmlOptions::Length::kCost
+                  : g.length_as == 2 ? GraphmlOptions::Length::kTransit
+                                     : GraphmlOptions::Length::kNone;
+  if (g.length_as == 2 && !(g.speed > 0)) {
+    g.error = a.notice = "The speed must be a number > 0 to turn lengths into transit times.";
+    report("open-failed");
+    return;
+  }
+  opt.speed = g.speed;
   if (g.value_unit > 0) {
     const double to = link_speed_factor(g.unit);
     if (to == 0) {

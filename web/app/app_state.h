@@ -54,6 +54,8 @@ struct GraphmlChoices {
   std::string unit = "Gbit/s";  // the network's capacity unit
   double default_capacity = 1;
   int undirected = 0;           // 0: one shared two-way arc, 1: two arcs
+  int length_as = 0;            // great-circle length: 0 not used, 1 as cost (km), 2 as transit time
+  double speed = 1;             // km per time unit, for 2
   std::string error;            // why the last Open could not read it with these choices
 };
 inline constexpr const char* kLinkSpeedUnits[] = {"bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};

@@ -165,6 +165,15 @@ void graphml_dialog() {
   if (ImGui::InputText("network's capacity unit", unit, sizeof unit)) g.unit = unit;
   ImGui::SetNextItemWidth(260);
   ImGui::InputDouble("capacity of links without it", &g.default_capacity, 0, 0, "%.6g");
+  const char* lengths[] = {"not used", "as each arc's cost (km)", "as each arc's transit time"};
+  ImGui::SetNextItemWidth(260);
+  ImGui::Combo("great-circle length", &g.length_as, lengths, IM_ARRAYSIZE(lengths));
+  if (ImGui::IsItemHovered())
+    ImGui::SetTooltip("From the nodes' Longitude and Latitude; links with an end without them get none.");
+  if (g.length_as == 2) {
+    ImGui::SetNextItemWidth(260);
+    ImGui::InputDouble("speed (km per time unit)", &g.speed, 0, 0, "%.6g");
+  }
   ImGui::RadioButton("an undirected link is one arc shared by both directions", &g.undirected, 0);
   ImGui::RadioButton("an undirected link is two arcs, one per direction", &g.undirected, 1);
   if (!g.error.empty()) {
