@@ -396,6 +396,30 @@ try {
     e = await ev;
     check('matrix dialog: one undo takes every new demand back', e && e.demands === start.demands, JSON.stringify(e));
     await b.page.waitForTimeout(300);
+    // The demands as a matrix CSV: exported, edited as a spreadsheet would, opened again
+    // to add its demands to the network (one undo step); a matrix naming no node is refused.
+    const mdl = b.page.waitForEvent('download');
+    await b.act('export-matrix-csv');
+    const mtext = fs.readFileSync(await (await mdl).path(), 'utf8').trim().split(/\r?\n/);
+    check('matrix export: one row per node after the header, the demo\'s 4 demands in its cells',
+          mtext.length === n + 1 && mtext.slice(1).join(',').split(',').filter((c) => c !== '').length === n + 4,
+          JSON.stringify(mtext.slice(0, 3)));
+    const ids = mtext[0].split(',').slice(1);
+    ev = b.next('edited');
+    const added = b.next('matrix-added');
+    await openFile(b, writeTmp('plan.matrix.csv', `,${ids[1]},${ids[2]}\n${ids[0]},7,max\n${ids[1]},,2\n`), 'matrix-added');
+    e = await ev;
+    const ma = await added;
+    check('matrix import: a CSV matrix opened in the page adds its 3 demands, one undo step',
+          e && e.demands === start.demands + 3 && e.undo === 'add 3 demands from plan.matrix.csv', JSON.stringify(e || ma));
+    ev = b.next('edited');
+    await b.act('undo');
+    e = await ev;
+    const bad = await openFile(b, writeTmp('other.matrix.csv', ',nowhere\nnobody,1\n'), 'open-failed');
+    check('matrix import: names that match no node are refused by line and column, the network unchanged',
+          bad && bad.messages.some((m) => m.includes("column 2 (nowhere)")) && bad.demands === start.demands,
+          JSON.stringify(bad && bad.messages));
+
     const pos = await b.positions();
     const [[id1, [x1, y1]], [id2, [x2, y2]]] = Object.entries(pos.nodes);
     let sel = b.next('selected');

@@ -10,6 +10,7 @@
 #include <sstream>
 
 #include "app/app_state.h"
+#include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_json.h"
 #include "apportion/layout/network_layout.h"
 #include "apportion/model/number_text.h"
@@ -338,6 +339,30 @@ bool add_matrix_demands() {
   return true;
 }
 
+void add_matrix_csv(const std::string& name, const std::string& text) {
+  App& a = app();
+  const MatrixCsvRead m = read_matrix_csv(a.doc, text);
+  if (!m.ok() || a.doc.demands.size() + m.pairs.size() > static_cast<std::size_t>(SizeLimits::kMaxDemands)) {
+    a.open_errors.clear();
+    a.open_errors.push_back(name + " was read as a traffic matrix for this network (rows: origins, columns: "
+                                   "destinations), and:");
+    for (const Diagnostic& d : m.diagnostics.items)
+      if (d.severity == Severity::kError) a.open_errors.push_back(d.to_string());
+    if (m.ok()) a.open_errors.push_back("it would make more demands than the limit of " +
+                                        std::to_string(SizeLimits::kMaxDemands));
+    report("open-failed");
+    return;
+  }
+  std::string warnings;
+  for (const Diagnostic& d : m.diagnostics.items)
+    if (d.severity == Severity::kWarning) warnings += " " + d.message + ".";
+  if (!m.pairs.empty())
+    edit("add " + std::to_string(m.pairs.size()) + " demands from " + name, true,
+         [&](Network& d) { add_pair_demands(d, m.pairs, 1.0, false); });
+  a.notice = name + ": " + std::to_string(m.pairs.size()) + " demands added from the matrix." + warnings;
+  report("matrix-added");
+}
+
 void ask_graphml_choices(const std::string& name, const std::string& text) {
   GraphmlChoices& g = app().graphml;
   const GraphmlChoices kept = g;  // the unit and default of the last import stay
@@ -446,6 +471,8 @@ void action(const std::string& what) {
     download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(a.doc, *r));
   else if (what == "export-svg") download_text(file_stem() + ".svg", "image/svg+xml", network_svg(a.doc, r));
   else if (what == "export-png") a.png_requested = true;
+  else if (what == "export-matrix-csv")
+    download_text(file_stem() + ".matrix.csv", "text/csv", write_matrix_csv(a.doc).text);
   else if (what == "export-result-json" && r)
     download_text(file_stem() + ".result.json", "application/json", multiflow_json(a.doc, *r));
   else if (what.rfind("objective ", 0) == 0) {

@@ -149,6 +149,9 @@ void action(const std::string& what);
 // Adds the demands app().matrix describes, as one undoable edit; false (and matrix.error
 // set) when they cannot be added, with the document unchanged.
 bool add_matrix_demands();
+// A traffic-matrix CSV arrived: its demands are added to the open network as one undoable
+// edit (weight 1), or its errors shown with the document unchanged.
+void add_matrix_csv(const std::string& name, const std::string& text);
 // A GraphML file arrived: keep it and ask how to read it (the "Open topology" dialog).
 void ask_graphml_choices(const std::string& name, const std::string& text);
 // Reads the waiting GraphML file with app().graphml's choices and opens it (warnings in the

@@ -225,6 +225,10 @@ extern "C" {
 // Files from the browser (picker, share link, autosave), as JSON; see file_payload.h.
 EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
   apportion::web::Payload p = apportion::web::read_payload(payload);
+  if (!p.matrix.empty()) {
+    apportion::web::add_matrix_csv(p.name, p.matrix);
+    return;
+  }
   if (!p.loaded.ok()) {
     app().open_errors.clear();
     for (const auto& d : p.loaded.diagnostics.items)

@@ -51,7 +51,10 @@ Payload read_payload(const std::string& payload_json) {
       if (ends_with(name, ".nodes.csv")) tables.nodes = text;
       else if (ends_with(name, ".arcs.csv")) tables.arcs = text;
       else if (ends_with(name, ".demands.csv")) tables.demands = text;
-      else {
+      else if (files.size() == 1) {
+        p.matrix = text;  // a traffic matrix for the open network
+        return p;
+      } else {
         p.loaded.diagnostics.error("file", name, "", "CSV tables must be named NAME.nodes.csv, NAME.arcs.csv, NAME.demands.csv");
         return p;
       }

@@ -210,6 +210,9 @@ void draw_toolbar() {
     if (ImGui::MenuItem("Paths (CSV)", nullptr, false, solved)) action("export-paths-csv");
     if (ImGui::MenuItem("Full result (JSON)", nullptr, false, solved)) action("export-result-json");
     ImGui::Separator();
+    if (ImGui::MenuItem("Demands as a matrix (CSV)")) action("export-matrix-csv");
+    if (ImGui::IsItemHovered())
+      ImGui::SetTooltip("Origins down, destinations across. Open such a file to add its demands to the network.");
     if (ImGui::MenuItem("Picture (SVG)")) action("export-svg");
     if (ImGui::MenuItem("Canvas (PNG)")) action("export-png");
     ImGui::EndPopup();
