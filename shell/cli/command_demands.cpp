@@ -55,15 +55,20 @@ Example:
   apportion demands demo-networks/harrowmere-fibre.json /tmp/all-pairs.json --gravity 400 --replace
 )";
 
+// The node with this id, else the first with this label; -1 when none.
+int node_by_name(const Network& net, const std::string& name) {
+  int v = net.find_node(name);
+  for (int u = 0; u < net.node_count() && v < 0; ++u)
+    if (net.nodes[u].label == name) v = u;
+  return v;
+}
+
 std::vector<int> node_list(const Network& net, const std::string& text, const char* option, std::string& error) {
   std::vector<int> out;
   for (const std::vector<std::string>& row : parse_csv(text).rows)
     for (const std::string& name : row) {
       if (name.empty()) continue;
-      int v = net.find_node(name);
-      if (v < 0)
-        for (int u = 0; u < net.node_count() && v < 0; ++u)
-          if (net.nodes[u].label == name) v = u;
+      const int v = node_by_name(net, name);
       if (v < 0) error = std::string("--") + option + ": no node has the id or label '" + name + "'";
       out.push_back(v);
     }
@@ -83,11 +88,9 @@ bool read_masses(const Network& net, const std::string& text, std::vector<double
       if (r == 0) continue;  // a header row
       return error = "--masses: line " + std::to_string(r + 1) + " is not \"node,mass\"", false;
     }
-    std::string unknown;
-    const std::vector<int> v = node_list(net, csv_field(row[0]), "masses", unknown);
-    if (!unknown.empty()) return error = unknown, false;
-    if (v.size() != 1) return error = "--masses: line " + std::to_string(r + 1) + " names no node", false;
-    mass[v[0]] = *m, given[v[0]] = 1;
+    const int v = node_by_name(net, row[0]);
+    if (v < 0) return error = "--masses: no node has the id or label '" + row[0] + "'", false;
+    mass[v] = *m, given[v] = 1;
   }
   for (int v = 0; v < net.node_count(); ++v)
     if (!given[v]) return error = "--masses: node '" + net.nodes[v].id + "' has no mass", false;
