@@ -62,6 +62,9 @@ XML
 # Traffic matrices for the three nodes a, b, c (labels "Node a", ...) of the matrix target.
 printf ',a,Node b,c\na,,12.5,max\nNode b,3,0,\nc,1e3,"7",\n' > "$corpus/matrix/small.csv"
 printf 'corner,c,b\r\nb,0.5,\r\n' > "$corpus/matrix/crlf.csv"
+# Demands tables for the same nodes (the matrix target reads each input both ways).
+printf 'From\tTo\tAmount\tWeight\nNode a\tc\t4\t2\nb\ta\tmax\t\n' > "$corpus/matrix/pasted.tsv"
+printf 'id,label,origin,destination,amount,weight\nk1,"x, y",a,b,,1\nk2,,c,a,3.5,\n' > "$corpus/matrix/table.csv"
 for rule in fair concurrent throughput feasible; do $cli $rule "$work/abc.json" --json "$corpus/result/$rule.json" >/dev/null 2>&1 || true; done
 
 status=0

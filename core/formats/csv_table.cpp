@@ -15,7 +15,7 @@ bool marked_shape(const std::string& s) {
 }
 }  // namespace
 
-CsvParse parse_csv(const std::string& text) {
+CsvParse parse_csv(const std::string& text, char delimiter) {
   CsvParse out;
   CsvRow row;
   std::string field;
@@ -56,7 +56,7 @@ CsvParse parse_csv(const std::string& text) {
       quoted = true;
       field_started = true;
       quote_line = line;
-    } else if (c == ',') {
+    } else if (c == delimiter) {
       end_field();
     } else if (c == '\r' && i + 1 < text.size() && text[i + 1] == '\n') {
       // CRLF: the \n ends the row

@@ -21,7 +21,9 @@ struct CsvParse {
   std::string error;  // empty when the text parsed; else what broke, with its line
 };
 
-CsvParse parse_csv(const std::string& text);
+// `delimiter`: ',' by the RFC; a spreadsheet's copied cells arrive with tabs, and some
+// locales save with ';'. Quoting works the same with each.
+CsvParse parse_csv(const std::string& text, char delimiter = ',');
 std::string csv_field(const std::string& value);  // quoted when RFC 4180 needs it
 std::string write_csv(const std::vector<CsvRow>& rows);
 

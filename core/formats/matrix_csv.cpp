@@ -7,42 +7,12 @@
 #include <unordered_map>
 
 #include "apportion/formats/csv_table.h"
+#include "apportion/model/blank_trim.h"
+#include "apportion/model/node_names.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/size_limits.h"
 
 namespace apportion {
-
-namespace {
-
-// Node by id, else by a label no other node has.
-class NodeNames {
- public:
-  explicit NodeNames(const Network& net) {
-    for (int v = 0; v < net.node_count(); ++v) {
-      by_id_.emplace(net.nodes[v].id, v);
-      if (net.nodes[v].label.empty()) continue;
-      auto [it, fresh] = by_label_.emplace(net.nodes[v].label, v);
-      if (!fresh) it->second = -2;  // shared by several nodes
-    }
-  }
-  // The node index; -1 when no node has the name, -2 when it is a label several nodes share.
-  int find(const std::string& name) const {
-    if (auto it = by_id_.find(name); it != by_id_.end()) return it->second;
-    if (auto it = by_label_.find(name); it != by_label_.end()) return it->second;
-    return -1;
-  }
-
- private:
-  std::unordered_map<std::string, int> by_id_, by_label_;
-};
-
-std::string trimmed(const std::string& s) {
-  const auto first = s.find_first_not_of(" \t");
-  if (first == std::string::npos) return "";
-  return s.substr(first, s.find_last_not_of(" \t") - first + 1);
-}
-
-}  // namespace
 
 MatrixCsvRead read_matrix_csv(const Network& net, const std::string& text) {
   MatrixCsvRead out;
@@ -70,7 +40,7 @@ MatrixCsvRead read_matrix_csv(const Network& net, const std::string& text) {
     const int v = names.find(name);
     if (v < 0 && ++unmatched <= kListed)
       d.error("line", line(r), column(c, name),
-              std::string(v == -1 ? "no node has this id or label (" : "several nodes have this label (") + role + ")");
+              std::string(NodeNames::why_not(v)) + " (" + role + ")");
     return v;
   };
   const CsvRow& head = csv.rows[0];

@@ -4,9 +4,10 @@
 #include <sstream>
 
 #include "apportion/formats/csv_table.h"
+#include "apportion/formats/demand_table.h"
 #include "apportion/formats/matrix_csv.h"
-#include "apportion/formats/network_csv.h"
 #include "apportion/formats/network_json.h"
+#include "apportion/model/node_names.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/size_limits.h"
 #include "apportion/model/traffic_matrix.h"
@@ -39,7 +40,11 @@ From a file instead:
   --matrix FILE.csv     a matrix: first row the destinations, first column the origins,
                         amounts in the cells ("max" for as much as possible; empty or 0:
                         no demand); nodes by id or label
-  --table FILE.csv      a demands table: id,label,origin,destination,amount,weight
+  --table FILE.csv      a demands table, one demand per row; its first row names the
+                        columns: origin and destination (ids or labels), and optionally
+                        amount (empty or "max": as much as possible), weight, id, label.
+                        Commas, tabs (cells copied from a spreadsheet) or semicolons.
+                        Rows without an id get "<origin>-<destination>"
 
 Also:
   --weight W            the new demands' weight (default 1; not for --table)
@@ -55,21 +60,14 @@ Example:
   apportion demands demo-networks/harrowmere-fibre.json /tmp/all-pairs.json --gravity 400 --replace
 )";
 
-// The node with this id, else the first with this label; -1 when none.
-int node_by_name(const Network& net, const std::string& name) {
-  int v = net.find_node(name);
-  for (int u = 0; u < net.node_count() && v < 0; ++u)
-    if (net.nodes[u].label == name) v = u;
-  return v;
-}
-
 std::vector<int> node_list(const Network& net, const std::string& text, const char* option, std::string& error) {
   std::vector<int> out;
+  const NodeNames names(net);
   for (const std::vector<std::string>& row : parse_csv(text).rows)
     for (const std::string& name : row) {
       if (name.empty()) continue;
-      const int v = node_by_name(net, name);
-      if (v < 0) error = std::string("--") + option + ": no node has the id or label '" + name + "'";
+      const int v = names.find(name);
+      if (v < 0) error = std::string("--") + option + ": " + NodeNames::why_not(v) + " '" + name + "'";
       out.push_back(v);
     }
   return out;
@@ -78,6 +76,7 @@ std::vector<int> node_list(const Network& net, const std::string& text, const ch
 bool read_masses(const Network& net, const std::string& text, std::vector<double>& mass, std::string& error) {
   const CsvParse csv = parse_csv(text);
   if (!csv.error.empty()) return error = "--masses: " + csv.error, false;
+  const NodeNames names(net);
   mass.assign(net.node_count(), 0.0);
   std::vector<char> given(net.node_count(), 0);
   for (std::size_t r = 0; r < csv.rows.size(); ++r) {
@@ -88,8 +87,8 @@ bool read_masses(const Network& net, const std::string& text, std::vector<double
       if (r == 0) continue;  // a header row
       return error = "--masses: line " + std::to_string(r + 1) + " is not \"node,mass\"", false;
     }
-    const int v = node_by_name(net, row[0]);
-    if (v < 0) return error = "--masses: no node has the id or label '" + row[0] + "'", false;
+    const int v = names.find(row[0]);
+    if (v < 0) return error = std::string("--masses: ") + NodeNames::why_not(v) + " '" + row[0] + "'", false;
     mass[v] = *m, given[v] = 1;
   }
   for (int v = 0; v < net.node_count(); ++v)
@@ -165,15 +164,10 @@ int run_demands(int argc, char** argv) {
       if (args.get("weight")) return fail("--weight: a demands table gives each demand's weight in its own column");
       std::string text;
       if (!read_input("table", text)) return fail(error);
-      NetworkCsv tables = write_network_csv(net);
-      tables.demands = text;
-      LoadResult added = read_network_csv(tables);
-      print_diagnostics(added.diagnostics);
-      if (!added.ok()) return kExitBadInput;
-      if (args.has("replace")) net.demands.clear();
-      for (const Demand& k : added.network->demands)
-        if (net.find_demand(k.id) >= 0) return fail("demand '" + k.id + "' of the table: the network has this id already");
-      for (Demand& k : added.network->demands) net.demands.push_back(std::move(k));
+      DemandTableRead table = read_demand_table(net, text, args.has("replace"));
+      print_diagnostics(table.diagnostics);
+      if (!table.ok()) return kExitBadInput;
+      add_demand_table(net, std::move(table), args.has("replace"));
     } else {
       TrafficMatrixSpec spec;
       spec.weight = weight;

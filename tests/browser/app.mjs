@@ -448,6 +448,64 @@ try {
     check('matrix dialog: one selected node is refused, saying why', f && f.notice.includes('at least two nodes') &&
           f.demands === start.demands + 2, JSON.stringify(f));
 
+    // From the one selected node to every other node (a hub's demands).
+    ev = b.next('edited');
+    await b.act('matrix uniform from-selected 1 1 1 keep');
+    e = await ev;
+    check(`matrix dialog: from the selected node ${id1} to each of the other ${n - 1} nodes`,
+          e && e.demands === start.demands + 2 + (n - 1) && e.undo === `add ${n - 1} demands (same amount)`, JSON.stringify(e));
+    ev = b.next('edited');
+    await b.act('undo');
+    await ev;
+
+    // A demands table pasted from a spreadsheet (tab-separated, the browser's paste event):
+    // the dialog opens with a preview, Add adds its rows as one undo step; a table naming no
+    // node is refused by row and column.
+    const paste = (text) => b.page.evaluate((t) => {
+      const dt = new DataTransfer();
+      dt.setData('text/plain', t);
+      document.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
+    }, text);
+    const pasted = b.next('table-pasted');
+    await paste(`From\tTo\tAmount\tWeight\r\n${id1}\t${id2}\t3\t2\r\n${id2}\t${id1}\t\t\r\n`);
+    check('paste: a spreadsheet\'s demands table opens the Add demands dialog', !!(await pasted));
+    await b.page.waitForTimeout(300);
+    await b.page.screenshot({ path: path.join(artefacts, 'pasted-table.png') });
+    await b.page.keyboard.press('Escape');
+    ev = b.next('edited');
+    await b.act('table-add keep');
+    e = await ev;
+    let st2 = await b.state();
+    check('paste: Add puts the 2 pasted rows into the network as one undo step',
+          e && e.demands === start.demands + 4 && e.undo === 'add 2 demands from a pasted table', JSON.stringify(e));
+    ev = b.next('edited');
+    await b.act('undo');
+    e = await ev;
+    check('paste: one undo takes the pasted rows back', e && e.demands === start.demands + 2, JSON.stringify(e));
+    await paste(`origin,destination\n${id1},nowhere\n`);
+    const tref = b.next('table-refused');
+    await b.act('table-add keep');
+    const tr = await tref;
+    check('paste: a table naming no node is refused by row and column, the network unchanged',
+          tr && tr.notice.includes("row '2'") && tr.notice.includes('column 2 (destination)') && tr.demands === start.demands + 2,
+          JSON.stringify(tr && tr.notice));
+    const notTable = b.next('paste-refused');
+    await paste('just some words');
+    const nt = await notTable;
+    check('paste: text that is not a table is refused, saying what a table needs',
+          nt && nt.notice.includes('origin and destination'), JSON.stringify(nt && nt.notice));
+    // A demands CSV opened alone: shown in the dialog, then added.
+    await openFile(b, writeTmp('extra.demands.csv', `id,origin,destination,amount\nx1,${id2},${id1},4\n`), 'table-opened');
+    ev = b.next('edited');
+    await b.act('table-add keep');
+    e = await ev;
+    st2 = await b.state();
+    check('open: a demands CSV alone adds its rows to the open network (one undo step)',
+          e && e.demands === start.demands + 3 && e.undo === 'add 1 demands from extra.demands.csv', JSON.stringify(e));
+    ev = b.next('edited');
+    await b.act('undo');
+    await ev;
+
     // The network's name and units are edited in the page, with undo.
     ev = b.next('edited');
     await b.act('set network - name Harrowmere east, 2027 plan');

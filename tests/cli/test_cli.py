@@ -159,6 +159,17 @@ table = w("more.demands.csv", f"id,label,origin,destination,amount,weight\nextra
 r = run("demands", demos[0], os.path.join(args.work, "table.json"), "--table", table)
 check("demands --table adds a demands table", r.returncode == 0 and
       json.load(open(os.path.join(args.work, "table.json")))["demands"][-1]["id"] == "extra", r.stderr)
+second = base["nodes"][1]["id"]
+pasted = w("pasted.tsv", f"From\tTo\tAmount\n{origin}\t{second}\t\n{second}\t{origin}\t7\n")
+r = run("demands", demos[0], os.path.join(args.work, "pasted.json"), "--table", pasted)
+got = json.load(open(os.path.join(args.work, "pasted.json")))["demands"][len(base["demands"]):] if r.returncode == 0 else []
+check("demands --table reads tab-separated cells without ids (a spreadsheet's copy)",
+      len(got) == 2 and got[0]["amount"] == "max" and got[1]["amount"] == 7 and got[1]["id"].startswith(f"{second}-{origin}"),
+      r.stderr)
+bad = w("bad.demands.csv", f"origin,destination,amount\n{origin},nowhere,1\n")
+r = run("demands", demos[0], os.path.join(args.work, "x.json"), "--table", bad)
+check("demands --table names the row and column of a bad node", r.returncode != 0 and "row '2'" in r.stderr and
+      "column 2 (destination)" in r.stderr and "'nowhere'" in r.stderr, r.stderr)
 r = run("demands", demos[0], os.path.join(args.work, "x.json"), "--gravity", "1", "--max")
 check("demands with two sources of amounts is a usage error", r.returncode == 2 and "exactly one of" in r.stderr)
 r = run("demands", demos[0], os.path.join(args.work, "x.json"), "--max", "--origins", "nowhere")

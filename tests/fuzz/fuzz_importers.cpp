@@ -1,5 +1,5 @@
 // libFuzzer targets for every way a file or link reaches Apportion: the network importers
-// (JSON, CSV tables, DIMACS, GraphML, the traffic-matrix CSV), the browser's file payload (which carries share
+// (JSON, CSV tables, DIMACS, GraphML, the traffic-matrix CSV and the demands table), the browser's file payload (which carries share
 // links, picked files and autosaves), and result files read back. Each input must give a
 // network or diagnostics -- never a crash, a hang or a sanitizer finding -- and a network
 // that comes back must pass validation and survive a JSON round trip unchanged in size.
@@ -10,6 +10,7 @@
 #include <cstdlib>
 #include <string>
 
+#include "apportion/formats/demand_table.h"
 #include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_csv.h"
 #include "apportion/formats/network_dimacs.h"
@@ -63,7 +64,7 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   check_loaded(read_graphml(text));
 #elif APPORTION_FUZZ_TARGET == 5
   const web::Payload p = web::read_payload(text);
-  if (!p.matrix.empty()) return 0;  // a traffic matrix: the matrix target reads those
+  if (!p.single_csv.empty()) return 0;  // a demands table or matrix: the matrix target reads those
   check_loaded(p.loaded);
 #elif APPORTION_FUZZ_TARGET == 6
   // Validate, then solve small networks: a result that says optimal must pass the checker.
@@ -99,6 +100,20 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
     n.arcs.push_back({"bc", 1, 2, 5.0, std::nullopt, std::nullopt, true, false});
     return n;
   }();
+  // The same text as a demands table (demand_table.h): what it accepts must make valid
+  // demands with unique ids, and the network's own demands table must read back whole.
+  {
+    DemandTableRead t = read_demand_table(net, text);
+    if (!t.ok() && !t.demands.empty()) std::abort();  // refused, yet demands given
+    if (t.ok()) {
+      Network with = net;
+      const std::size_t count = t.demands.size();
+      add_demand_table(with, std::move(t), false);
+      if (validate(with).has_errors()) std::abort();
+      const DemandTableRead back = read_demand_table(net, write_network_csv(with).demands, true);
+      if (!back.ok() || back.demands.size() != count) std::abort();
+    }
+  }
   const MatrixCsvRead m = read_matrix_csv(net, text);
   if (!m.ok()) {
     if (!m.pairs.empty()) std::abort();  // refused, yet pairs given

@@ -10,6 +10,8 @@
 #include <sstream>
 
 #include "app/app_state.h"
+#include <imgui.h>
+#include "apportion/formats/demand_table.h"
 #include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_json.h"
 #include "apportion/layout/network_layout.h"
@@ -315,6 +317,9 @@ bool add_matrix_demands() {
   if (m.between == 1) {
     if (a.selection.nodes.size() < 2) return m.error = "Select at least two nodes, or choose all nodes.", false;
     spec.origins = spec.destinations = a.selection.nodes;
+  } else if (m.between >= 2) {
+    if (a.selection.nodes.empty()) return m.error = "Select the nodes first (click, or shift-click for more).", false;
+    (m.between == 2 ? spec.origins : spec.destinations) = a.selection.nodes;
   }
   spec.amounts = m.amounts == 0 ? MatrixAmounts::kGravity : m.amounts == 1 ? MatrixAmounts::kUniform : MatrixAmounts::kMax;
   spec.total = m.total;
@@ -339,8 +344,70 @@ bool add_matrix_demands() {
   return true;
 }
 
-void add_matrix_csv(const std::string& name, const std::string& text) {
+const DemandTableRead& pasted_table() {
   App& a = app();
+  MatrixChoices& m = a.matrix;
+  if (m.table_read_at != a.doc_changes || m.table_read_replace != m.replace) {
+    m.table = m.table_text.empty() ? DemandTableRead{} : read_demand_table(a.doc, m.table_text, m.replace);
+    m.table_read_at = a.doc_changes, m.table_read_replace = m.replace;
+  }
+  return m.table;
+}
+
+bool add_pasted_table() {
+  App& a = app();
+  MatrixChoices& m = a.matrix;
+  if (m.table_text.empty()) return m.error = "Nothing pasted yet: copy the rows in a spreadsheet, then press Ctrl+V here.", false;
+  DemandTableRead table = pasted_table();
+  if (!table.ok()) {
+    int errors = table.diagnostics.error_count();
+    for (const Diagnostic& d : table.diagnostics.items)
+      if (d.severity == Severity::kError) {
+        m.error = d.to_string() + (errors > 1 ? " (and " + std::to_string(errors - 1) + " more, listed above)" : "");
+        break;
+      }
+    return false;
+  }
+  m.error.clear();
+  const std::string from = m.table_name.empty() ? "a pasted table" : m.table_name;
+  const int count = static_cast<int>(table.demands.size());
+  edit("add " + std::to_string(count) + " demands from " + from, true,
+       [&](Network& d) { add_demand_table(d, std::move(table), m.replace); });
+  a.notice = from + ": " + std::to_string(count) + " demands added" +
+             (m.replace ? ", in place of the earlier ones." : ".");
+  m.table_text.clear(), m.table_name.clear(), m.table_read_at = -1;
+  report("demands-added");
+  return true;
+}
+
+void receive_paste(const std::string& text) {
+  App& a = app();
+  ImGuiIO& io = ImGui::GetIO();
+  if (io.WantTextInput) {  // GLFW's clipboard is empty in the browser: type the text in
+    io.AddInputCharactersUTF8(text.c_str());
+    return;
+  }
+  if (!looks_like_demand_table(text)) {
+    a.notice = "The pasted text is not a demands table: its first row must name the columns, with at least "
+               "origin and destination (also amount, weight, id, label).";
+    report("paste-refused");
+    return;
+  }
+  a.matrix.source = 1;
+  a.matrix.table_text = text, a.matrix.table_name.clear(), a.matrix.table_read_at = -1;
+  a.matrix_dialog_requested = true;
+  report("table-pasted");
+}
+
+void add_single_csv(const std::string& name, const std::string& text) {
+  App& a = app();
+  if (looks_like_demand_table(text)) {  // a demands table: shown in the dialog to check, then added
+    a.matrix.source = 1;
+    a.matrix.table_text = text, a.matrix.table_name = name, a.matrix.table_read_at = -1;
+    a.matrix_dialog_requested = true;
+    report("table-opened");
+    return;
+  }
   const MatrixCsvRead m = read_matrix_csv(a.doc, text);
   if (!m.ok() || a.doc.demands.size() + m.pairs.size() > static_cast<std::size_t>(SizeLimits::kMaxDemands)) {
     a.open_errors.clear();
@@ -540,18 +607,26 @@ void action(const std::string& what) {
                                             .c_str());
   } else if (what.rfind("tab ", 0) == 0) {
     a.right_tab = std::atoi(what.c_str() + 4);
+  } else if (what.rfind("table-add ", 0) == 0) {  // "table-add keep|replace": the dialog's Add for a table
+    a.matrix.replace = what.substr(10) == "replace";
+    if (!add_pasted_table()) {
+      a.notice = a.matrix.error;
+      report("table-refused");
+    }
   } else if (what == "matrix-dialog") {
     a.matrix_dialog_requested = true;
   } else if (what.rfind("matrix ", 0) == 0) {
-    // "matrix gravity|uniform|max all|selected VALUE SEED WEIGHT keep|replace": the dialog's Add
+    // "matrix gravity|uniform|max all|selected|from-selected|to-selected VALUE SEED WEIGHT
+    // keep|replace": the dialog's Add
     std::istringstream in(what.substr(7));
     std::string amounts, between, mode;
     double value = 0, weight = 1;
     int seed = 1;
     in >> amounts >> between >> value >> seed >> weight >> mode;
     MatrixChoices& m = a.matrix;
+    m.source = 0;
     m.amounts = amounts == "gravity" ? 0 : amounts == "uniform" ? 1 : 2;
-    m.between = between == "selected" ? 1 : 0;
+    m.between = between == "selected" ? 1 : between == "from-selected" ? 2 : between == "to-selected" ? 3 : 0;
     (m.amounts == 0 ? m.total : m.amount) = value;
     m.seed = seed, m.weight = weight, m.replace = mode == "replace";
     if (!add_matrix_demands()) {

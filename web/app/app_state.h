@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "app/document_history.h"
+#include "apportion/formats/demand_table.h"
 #include "apportion/formats/network_graphml.h"
 #include "apportion/model/diagnostics.h"
 #include "apportion/model/network.h"
@@ -31,9 +32,12 @@ struct RunningSolve {
   int round = 0, settled = 0, demands = 0, lp_solves = 0;
 };
 
-// The "Add demands" dialog's choices (traffic_matrix.h): kept between openings.
+// The "Add demands" dialog's choices (traffic_matrix.h, demand_table.h): kept between
+// openings.
 struct MatrixChoices {
-  int between = 0;   // 0: all nodes, 1: the selected nodes
+  int source = 0;    // 0: generate pairs, 1: a table pasted from a spreadsheet (or opened)
+  int between = 0;   // 0: every pair of all nodes, 1: every pair of the selected nodes,
+                     // 2: from the selected nodes to every node, 3: from every node to them
   int amounts = 0;   // 0: gravity, 1: the same amount for each pair, 2: as much as possible
   double total = 0;  // gravity: the sum of the amounts (0: a third of the total capacity)
   double amount = 1;
@@ -41,6 +45,12 @@ struct MatrixChoices {
   double weight = 1;
   bool replace = false;
   std::string error;  // of the last attempt, shown in the dialog
+  // The table: its text, where it came from, and how it reads against the document
+  // (re-read when the text, the replace choice or the document changes).
+  std::string table_text, table_name;
+  DemandTableRead table;
+  long long table_read_at = -1;  // App::doc_changes when `table` was read
+  bool table_read_replace = false;
 };
 
 // A GraphML file waiting for the "Open topology" dialog's choices (network_graphml.h).
@@ -149,9 +159,19 @@ void action(const std::string& what);
 // Adds the demands app().matrix describes, as one undoable edit; false (and matrix.error
 // set) when they cannot be added, with the document unchanged.
 bool add_matrix_demands();
-// A traffic-matrix CSV arrived: its demands are added to the open network as one undoable
+// A single CSV arrived: a demands table (its first row names origin and destination) opens
+// in the "Add demands" dialog to be checked and added; any other is a traffic matrix, whose
+// demands are added to the open network as one undoable
 // edit (weight 1), or its errors shown with the document unchanged.
-void add_matrix_csv(const std::string& name, const std::string& text);
+void add_single_csv(const std::string& name, const std::string& text);
+// The table in app().matrix, read against the document as it is now (cached).
+const DemandTableRead& pasted_table();
+// Adds the table in app().matrix as one undoable edit; false (and matrix.error set) when it
+// has errors, with the document unchanged.
+bool add_pasted_table();
+// Text pasted into the page (the browser's paste event): into the text field being edited,
+// else as a demands table into the "Add demands" dialog, which opens to show it.
+void receive_paste(const std::string& text);
 // A GraphML file arrived: keep it and ask how to read it (the "Open topology" dialog).
 void ask_graphml_choices(const std::string& name, const std::string& text);
 // Reads the waiting GraphML file with app().graphml's choices and opens it (warnings in the

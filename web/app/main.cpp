@@ -225,8 +225,8 @@ extern "C" {
 // Files from the browser (picker, share link, autosave), as JSON; see file_payload.h.
 EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
   apportion::web::Payload p = apportion::web::read_payload(payload);
-  if (!p.matrix.empty()) {
-    apportion::web::add_matrix_csv(p.name, p.matrix);
+  if (!p.single_csv.empty()) {
+    apportion::web::add_single_csv(p.name, p.single_csv);
     return;
   }
   if (!p.loaded.ok()) {
@@ -244,6 +244,10 @@ EMSCRIPTEN_KEEPALIVE void apportion_receive_files(const char* payload) {
   apportion::web::set_document(std::move(*p.loaded.network), label, /*save=*/p.source != "autosave");
   apportion::web::report("opened");
 }
+
+// Text the browser's paste event carries (see shell.html; GLFW's clipboard is empty in the
+// browser).
+EMSCRIPTEN_KEEPALIVE void apportion_receive_paste(const char* text) { apportion::web::receive_paste(text); }
 
 // Answers of the solver worker (web/browser/shell.html forwards them).
 EMSCRIPTEN_KEEPALIVE void apportion_solve_progress(int id, const char* json) {

@@ -48,13 +48,14 @@ Payload read_payload(const std::string& payload_json) {
     if (ends_with(name, ".csv")) {
       any_csv = true;
       p.name = name;
+      if (files.size() == 1 && !ends_with(name, ".nodes.csv") && !ends_with(name, ".arcs.csv")) {
+        p.single_csv = text;  // a demands table or a traffic matrix for the open network
+        return p;
+      }
       if (ends_with(name, ".nodes.csv")) tables.nodes = text;
       else if (ends_with(name, ".arcs.csv")) tables.arcs = text;
       else if (ends_with(name, ".demands.csv")) tables.demands = text;
-      else if (files.size() == 1) {
-        p.matrix = text;  // a traffic matrix for the open network
-        return p;
-      } else {
+      else {
         p.loaded.diagnostics.error("file", name, "", "CSV tables must be named NAME.nodes.csv, NAME.arcs.csv, NAME.demands.csv");
         return p;
       }

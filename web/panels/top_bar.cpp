@@ -80,42 +80,113 @@ void recover_menu() {
   ImGui::EndPopup();
 }
 
-// A traffic matrix in one step (traffic_matrix.h): which pairs, their amounts, their weight.
+// The pasted or opened demands table, as it reads against the document: a preview of the
+// first rows and every message, so a planner sees what Add will do (demand_table.h).
+void table_preview(MatrixChoices& m) {
+  App& a = app();
+  ImGui::TextWrapped("Copy the rows in a spreadsheet, the header row included (origin and destination, by node id "
+                     "or label; optionally amount, weight, id, label), then press Ctrl+V here (Cmd+V on a Mac). "
+                     "A CSV file of that form can be opened instead.");
+  if (m.table_text.empty()) {
+    ImGui::TextDisabled("Nothing pasted yet.");
+    return;
+  }
+  const DemandTableRead& t = pasted_table();
+  const char* sep = t.delimiter == '\t' ? "tab" : t.delimiter == ';' ? "semicolon" : "comma";
+  const std::string from = m.table_name.empty() ? "Pasted table" : m.table_name;
+  if (t.ok())
+    ImGui::TextWrapped("%s (%s-separated): %zu demands to add; %d without an id get one from their origin and "
+                       "destination.", from.c_str(), sep, t.demands.size(), t.generated_ids);
+  else
+    ImGui::TextWrapped("%s (%s-separated): %d errors; nothing can be added until they are fixed.", from.c_str(), sep,
+                       t.diagnostics.error_count());
+  if (!t.demands.empty() &&
+      ImGui::BeginTable("table-preview", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_SizingStretchProp)) {
+    for (const char* h : {"id", "origin", "destination", "amount", "weight"}) ImGui::TableSetupColumn(h);
+    ImGui::TableHeadersRow();
+    auto node = [&](int v) { return a.doc.nodes[v].label.empty() ? a.doc.nodes[v].id : a.doc.nodes[v].label; };
+    for (std::size_t i = 0; i < t.demands.size() && i < 6; ++i) {
+      const Demand& k = t.demands[i];
+      ImGui::TableNextRow();
+      ImGui::TableNextColumn(), ImGui::TextUnformatted(k.id.c_str());
+      ImGui::TableNextColumn(), ImGui::TextUnformatted(node(k.origin).c_str());
+      ImGui::TableNextColumn(), ImGui::TextUnformatted(node(k.destination).c_str());
+      ImGui::TableNextColumn();
+      if (k.amount) ImGui::Text("%.6g", *k.amount);
+      else ImGui::TextUnformatted("as much as possible");
+      ImGui::TableNextColumn(), ImGui::Text("%.6g", k.weight);
+    }
+    ImGui::EndTable();
+    if (t.demands.size() > 6) ImGui::TextDisabled("... and %zu more", t.demands.size() - 6);
+  }
+  if (!t.diagnostics.items.empty()) {
+    ImGui::BeginChild("table-messages", ImVec2(0, std::min(160.0f, 20.0f * t.diagnostics.items.size() + 8)), true);
+    for (const Diagnostic& d : t.diagnostics.items) {
+      const bool error = d.severity == Severity::kError;
+      ImGui::PushStyleColor(ImGuiCol_Text, error ? ImVec4(1.0f, 0.55f, 0.45f, 1.0f) : ImVec4(0.95f, 0.85f, 0.5f, 1.0f));
+      ImGui::TextWrapped("%s", d.to_string().c_str());
+      ImGui::PopStyleColor();
+    }
+    ImGui::EndChild();
+  }
+  if (ImGui::SmallButton("Clear the table")) m.table_text.clear(), m.table_name.clear(), m.table_read_at = -1;
+}
+
+// Many demands in one step: a traffic matrix (traffic_matrix.h) -- which pairs, their
+// amounts, their weight -- or a table pasted from a spreadsheet (demand_table.h).
 void matrix_dialog() {
   App& a = app();
   MatrixChoices& m = a.matrix;
-  ImGui::SetNextWindowSize(ImVec2(460, 0), ImGuiCond_Appearing);
+  ImGui::SetNextWindowSize(ImVec2(520, 0), ImGuiCond_Appearing);
   if (!ImGui::BeginPopupModal("Add demands", nullptr, ImGuiWindowFlags_NoSavedSettings)) return;
   if (ImGui::IsWindowAppearing()) m.error.clear();
-  const int n = m.between == 1 ? static_cast<int>(a.selection.nodes.size()) : a.doc.node_count();
-  ImGui::TextUnformatted("One demand for every ordered pair of distinct nodes among");
-  ImGui::RadioButton("all nodes", &m.between, 0);
+  ImGui::RadioButton("generate pairs", &m.source, 0);
   ImGui::SameLine();
-  char selected[64];
-  std::snprintf(selected, sizeof selected, "the %zu selected nodes", a.selection.nodes.size());
-  ImGui::RadioButton(selected, &m.between, 1);
-  ImGui::Text("%d pairs", n > 1 ? n * (n - 1) : 0);
+  ImGui::RadioButton("from a table (paste or open)", &m.source, 1);
   ImGui::Separator();
-  ImGui::TextUnformatted("Amounts");
-  ImGui::RadioButton("gravity model", &m.amounts, 0);
-  ImGui::SameLine();
-  ImGui::RadioButton("the same for each", &m.amounts, 1);
-  ImGui::SameLine();
-  ImGui::RadioButton("as much as possible", &m.amounts, 2);
-  const std::string unit = a.doc.units.capacity.empty() ? "" : " (" + a.doc.units.capacity + ")";
-  if (m.amounts == 0) {
-    ImGui::TextWrapped("Pair (i, j) asks total x m_i m_j / (sum over the pairs of m_p m_q), node masses m drawn "
-                       "from [1, 10) with the seed. Total 0: a third of the total capacity.");
+  if (m.source == 1) {
+    table_preview(m);
+  } else {
+    const int all = a.doc.node_count();
+    const int sel = static_cast<int>(a.selection.nodes.size());
+    ImGui::TextUnformatted("One demand for every ordered pair of distinct nodes");
+    ImGui::RadioButton("among all nodes", &m.between, 0);
+    char label[96];
+    std::snprintf(label, sizeof label, "among the %d selected nodes", sel);
+    ImGui::SameLine();
+    ImGui::RadioButton(label, &m.between, 1);
+    std::snprintf(label, sizeof label, "from the %d selected to every node", sel);
+    ImGui::RadioButton(label, &m.between, 2);
+    std::snprintf(label, sizeof label, "from every node to the %d selected", sel);
+    ImGui::SameLine();
+    ImGui::RadioButton(label, &m.between, 3);
+    const long long pairs = m.between == 0   ? static_cast<long long>(all) * std::max(0, all - 1)
+                            : m.between == 1 ? static_cast<long long>(sel) * std::max(0, sel - 1)
+                                             : static_cast<long long>(sel) * std::max(0, all - 1);
+    ImGui::Text("%lld pairs", pairs);
+    if (m.between > 0) ImGui::TextDisabled("Select nodes on the canvas: click, shift-click for more.");
+    ImGui::Separator();
+    ImGui::TextUnformatted("Amounts");
+    ImGui::RadioButton("gravity model", &m.amounts, 0);
+    ImGui::SameLine();
+    ImGui::RadioButton("the same for each", &m.amounts, 1);
+    ImGui::SameLine();
+    ImGui::RadioButton("as much as possible", &m.amounts, 2);
+    const std::string unit = a.doc.units.capacity.empty() ? "" : " (" + a.doc.units.capacity + ")";
+    if (m.amounts == 0) {
+      ImGui::TextWrapped("Pair (i, j) asks total x m_i m_j / (sum over the pairs of m_p m_q), node masses m drawn "
+                         "from [1, 10) with the seed. Total 0: a third of the total capacity.");
+      ImGui::SetNextItemWidth(160);
+      ImGui::InputDouble(("total" + unit).c_str(), &m.total, 0, 0, "%.6g");
+      ImGui::SetNextItemWidth(160);
+      ImGui::InputInt("seed", &m.seed);
+    } else if (m.amounts == 1) {
+      ImGui::SetNextItemWidth(160);
+      ImGui::InputDouble(("amount of each pair" + unit).c_str(), &m.amount, 0, 0, "%.6g");
+    }
     ImGui::SetNextItemWidth(160);
-    ImGui::InputDouble(("total" + unit).c_str(), &m.total, 0, 0, "%.6g");
-    ImGui::SetNextItemWidth(160);
-    ImGui::InputInt("seed", &m.seed);
-  } else if (m.amounts == 1) {
-    ImGui::SetNextItemWidth(160);
-    ImGui::InputDouble(("amount of each pair" + unit).c_str(), &m.amount, 0, 0, "%.6g");
+    ImGui::InputDouble("weight of each", &m.weight, 0, 0, "%.6g");
   }
-  ImGui::SetNextItemWidth(160);
-  ImGui::InputDouble("weight of each", &m.weight, 0, 0, "%.6g");
   ImGui::Checkbox("replace the existing demands", &m.replace);
   if (!m.error.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
@@ -123,7 +194,10 @@ void matrix_dialog() {
     ImGui::PopStyleColor();
   }
   ImGui::TextDisabled("One step: Undo takes all of them back.");
-  if (ImGui::Button("Add") && add_matrix_demands()) ImGui::CloseCurrentPopup();
+  const bool blocked = m.source == 1 && (m.table_text.empty() || !pasted_table().ok());
+  ImGui::BeginDisabled(blocked);
+  if (ImGui::Button("Add") && (m.source == 1 ? add_pasted_table() : add_matrix_demands())) ImGui::CloseCurrentPopup();
+  ImGui::EndDisabled();
   ImGui::SameLine();
   if (ImGui::Button("Cancel") || ImGui::IsKeyPressed(ImGuiKey_Escape)) ImGui::CloseCurrentPopup();
   ImGui::EndPopup();
