@@ -11,6 +11,7 @@
 #include "apportion/model/node_names.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/size_limits.h"
+#include "apportion/model/validation.h"
 
 namespace apportion {
 
@@ -133,7 +134,9 @@ DemandTableRead read_demand_table(const Network& net, const std::string& text, b
     }
     k.id = cell(kId);
     k.label = cell(kLabel);
-    if (k.id.size() > SizeLimits::kMaxStringLength || k.label.size() > SizeLimits::kMaxStringLength)
+    if (!valid_utf8(k.id) || !valid_utf8(k.label))  // fuzzing finding: an id "k\xb0"
+      fail(r, valid_utf8(k.id) ? kLabel : kId, "is not UTF-8 text (save the file as UTF-8)"), good = false;
+    else if (k.id.size() > SizeLimits::kMaxStringLength || k.label.size() > SizeLimits::kMaxStringLength)
       fail(r, k.id.size() > SizeLimits::kMaxStringLength ? kId : kLabel, "longer than " + std::to_string(SizeLimits::kMaxStringLength) + " characters"), good = false;
     else if (!k.id.empty() && taken.count(k.id))
       fail(r, kId, "'" + k.id + "': " + (given_ids.count(k.id) ? "an earlier row has this id" : "the network has a demand with this id")), good = false;
@@ -154,7 +157,8 @@ DemandTableRead read_demand_table(const Network& net, const std::string& text, b
   std::unordered_map<std::string, int> next_suffix;
   for (std::size_t i : rows_without_id) {
     Demand& k = out.demands[i];
-    const std::string base = net.nodes[k.origin].id + "-" + net.nodes[k.destination].id;
+    std::string base = net.nodes[k.origin].id + "-" + net.nodes[k.destination].id;
+    if (base.size() + 12 > SizeLimits::kMaxStringLength) base = "d" + std::to_string(i + 1);  // ids near the limit
     int& s = next_suffix.emplace(base, 1).first->second;
     k.id = s == 1 ? base : base + "-" + std::to_string(s);
     while (!taken.insert(k.id).second) k.id = base + "-" + std::to_string(++s);

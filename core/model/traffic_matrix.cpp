@@ -90,7 +90,9 @@ void add_pair_demands(Network& net, const std::vector<PairAmount>& pairs, double
   net.demands.reserve(net.demands.size() + pairs.size());
   for (const PairAmount& p : pairs) {
     Demand k;
-    const std::string base = net.nodes[p.origin].id + "-" + net.nodes[p.destination].id;
+    std::string base = net.nodes[p.origin].id + "-" + net.nodes[p.destination].id;
+    // Ids near the length limit would make one past it (size_limits.h): a short one instead.
+    if (base.size() + 12 > SizeLimits::kMaxStringLength) base = "d" + std::to_string(net.demands.size() + 1);
     k.id = base;
     for (int s = 2; !taken.insert(k.id).second; ++s) k.id = base + "-" + std::to_string(s);
     k.origin = p.origin, k.destination = p.destination, k.weight = weight, k.amount = p.amount;

@@ -120,6 +120,10 @@ TEST_CASE("demands table: errors name the row and the column, and nothing is add
   CHECK(read_demand_table(three(), "id,origin,destination\nams-ber,ber,ams\n", true).ok());
   CHECK_FALSE(read_demand_table(three(), "id,origin,destination\nams-ber,ber,ams\n", false).ok());
 
+  // Fuzzing finding: an id that is not UTF-8 text passed, and the network then failed validation.
+  CHECK(has(read_demand_table(three(), "id,origin,destination\nk\xb0,ber,ams\n").diagnostics, "2", "column 1 (id)",
+            "not UTF-8 text"));
+
   const DemandTableRead no_header = read_demand_table(net, "ams,cph,1\n");
   CHECK(has(no_header.diagnostics, "1", "", "must name the columns"));
   CHECK_FALSE(looks_like_demand_table(",ams,ber\nams,,1\n"));  // a matrix
