@@ -51,6 +51,7 @@ class Engine {
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
         demand_tol_(demand_tolerances()) {
     master_.lp().set_hot_start(opt.hot_start);
+    master_.set_path_pool(opt.path_pool);
   }
 
   MultiflowResult run();
@@ -196,7 +197,13 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
 
     Tier tier;
     tier.level = t;
-    const double dual_tol = 1e-9 / weight_sum;
+    // A positive dual proves a demand cannot grow (step 2), so noise must not pass for one.
+    // The duals of the level rows sum to 1 / (mean weight) over a bottleneck's demands, and
+    // a zero dual comes back as rounding noise (seen: 2.9e-12 at 5,000 demands, where the
+    // bound 1e-9 / (sum of weights) was 1.3e-12 and froze demands that could still grow).
+    // 1e-9 / (mean weight) keeps a margin over the noise at any count of demands; a real
+    // dual below it only sends its demand to the sum test, which decides it exactly.
+    const double dual_tol = 1e-9 * static_cast<double>(open.size()) / weight_sum;
     for (int a = 0; a < g_.arc_count(); ++a) {
       const int row = master_.capacity_row(a);
       if (row >= 0 && -lp().row_dual(row) > dual_tol) {
@@ -720,6 +727,7 @@ MultiflowResult Engine::run() {
   r.stats.simplex_iterations = ms.simplex_iterations;
   r.stats.pricing_rounds = ms.pricing_rounds;
   r.stats.path_columns = ms.path_columns;
+  r.stats.paths_dropped = ms.paths_dropped;
   r.status = SolveStatus::kOptimal;  // until the check, which the caller runs in the file's units
   return r;
 }
@@ -773,6 +781,7 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     r.stats.simplex_iterations += first.simplex_iterations;
     r.stats.pricing_rounds += first.pricing_rounds;
     r.stats.path_columns += first.path_columns;
+    r.stats.paths_dropped += first.paths_dropped;
     r.stats.saturation_tests += first.saturation_tests;
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {

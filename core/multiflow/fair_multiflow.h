@@ -9,7 +9,9 @@
 //      f_k <= a_k, capacities (column generation);
 //   2. freeze the demands whose amount caps t (a_k / w_k = t*), and those whose constraint
 //      f_k >= w_k t has a positive dual: complementary slackness makes it tight in every
-//      optimal solution, so they cannot grow at level t*;
+//      optimal solution, so they cannot grow at level t*. "Positive" means above 1e-9 of the
+//      duals' own scale (they sum to 1 / mean weight over a bottleneck), well above the
+//      rounding noise of a zero dual; a smaller dual proves nothing and goes to step 3;
 //   2a. a round that stopped at the smallest amount level of the open demands (t* = a_k / w_k)
 //      and froze only demands at their amounts searches for the highest amount level G that
 //      every open demand can reach at once, min(w_k G, a_k) for all; no bottleneck lies

@@ -51,6 +51,15 @@ void LpSolver::set_column_bounds(int column, double lower, double upper) {
 }
 void LpSolver::set_row_bounds(int row, double lower, double upper) { impl_->highs.changeRowBounds(row, lower, upper); }
 void LpSolver::set_coefficient(int row, int column, double value) { impl_->highs.changeCoeff(row, column, value); }
+std::vector<int> LpSolver::delete_columns(const std::vector<char>& drop) {
+  std::vector<HighsInt> mask(drop.begin(), drop.end());
+  impl_->highs.deleteCols(mask.data());  // on return: the new index, or -1
+  return std::vector<int>(mask.begin(), mask.end());
+}
+bool LpSolver::is_basic(int column) const {
+  const HighsBasis& b = impl_->highs.getBasis();
+  return b.valid && b.col_status[column] == HighsBasisStatus::kBasic;
+}
 int LpSolver::column_count() const { return static_cast<int>(impl_->highs.getNumCol()); }
 int LpSolver::row_count() const { return static_cast<int>(impl_->highs.getNumRow()); }
 

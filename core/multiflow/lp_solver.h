@@ -42,6 +42,13 @@ class LpSolver {
   void set_column_bounds(int column, double lower, double upper);
   void set_row_bounds(int row, double lower, double upper);
   void set_coefficient(int row, int column, double value);
+  // Deletes the columns with drop[j] true (drop has one entry per column) and returns each
+  // column's new index, -1 for a deleted one; the others keep their order. The basis stays
+  // valid, and the next solve hot-starts from it, when no basic column is deleted. The last
+  // solution is gone until the next solve.
+  std::vector<int> delete_columns(const std::vector<char>& drop);
+  // After an optimal solve: whether the column is in the basis.
+  bool is_basic(int column) const;
   int column_count() const;
   int row_count() const;
 

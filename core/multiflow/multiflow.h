@@ -64,6 +64,10 @@ struct FairOptions {
   // that every demand can reach, and settles all amounts below it at once (fair_multiflow.h);
   // false: one round per amount, the method before, kept to measure against.
   bool amount_search = true;
+  // Column generation drops the path columns that the LP does not use and that price
+  // unattractive once the paths outnumber the rows this many times (path_master.h); 0: every
+  // path priced in stays, the method before, kept to measure against.
+  double path_pool = 2.0;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 
@@ -117,7 +121,8 @@ struct MultiflowStats {
   int lp_solves = 0;
   long long simplex_iterations = 0;
   int pricing_rounds = 0;
-  int path_columns = 0;
+  int path_columns = 0;      // paths priced in (a dropped path priced in again counts again)
+  int paths_dropped = 0;     // unused paths dropped from the LP (FairOptions::purge_paths)
   int saturation_tests = 0;  // LPs run to settle zero-dual demands
 };
 

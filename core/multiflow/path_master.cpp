@@ -63,9 +63,7 @@ PathMaster::PathMaster(const FlowGraph& g, const std::vector<DemandSpec>& demand
 
 bool PathMaster::add_path(int demand, std::vector<int> lanes) {
   if (lanes.empty()) return false;
-  std::string key = std::to_string(demand);
-  for (int l : lanes) key += ',' + std::to_string(l);
-  if (!known_.insert(key).second) return false;
+  if (!known_.insert(path_key(demand, lanes)).second) return false;
   // One coefficient per capacity row (both lanes of a two-way arc share the row).
   std::map<int, double> coef;
   double length = 0.0;
@@ -82,6 +80,53 @@ bool PathMaster::add_path(int demand, std::vector<int> lanes) {
   paths_.push_back(std::move(p));
   ++stats_.path_columns;
   return true;
+}
+
+std::string PathMaster::path_key(int demand, const std::vector<int>& lanes) {
+  std::string key = std::to_string(demand);
+  for (int l : lanes) key += ',' + std::to_string(l);
+  return key;
+}
+
+std::vector<char> PathMaster::stale_paths() const {
+  std::vector<char> stale;
+  if (!(path_pool_ > 0) || routing_.k_paths > 0 || static_cast<double>(paths_.size()) <= path_pool_ * lp_.row_count())
+    return stale;
+  // The same relative tolerance as pricing: a path within it of pricing in is kept.
+  double scale = 1.0;
+  for (const MasterPath& p : paths_) scale = std::max(scale, std::abs(lp_.reduced_cost(p.column)));
+  const double tol = 1e-9 * scale;
+  stale.assign(paths_.size(), 0);
+  for (std::size_t i = 0; i < paths_.size(); ++i) {
+    const int c = paths_[i].column;
+    stale[i] = !lp_.is_basic(c) && lp_.value(c) == 0.0 && lp_.reduced_cost(c) > tol;
+  }
+  return stale;
+}
+
+void PathMaster::drop_paths(const std::vector<char>& stale) {
+  std::vector<char> drop(lp_.column_count(), 0);
+  int dropped = 0;
+  for (std::size_t i = 0; i < stale.size(); ++i)
+    if (stale[i]) drop[paths_[i].column] = 1, ++dropped;
+  if (dropped == 0) return;
+  const std::vector<int> moved = lp_.delete_columns(drop);
+  std::vector<MasterPath> kept;
+  kept.reserve(paths_.size() - dropped);
+  for (std::size_t i = 0; i < paths_.size(); ++i) {  // paths priced in after `stale` was read stay
+    if (i < stale.size() && stale[i]) {
+      known_.erase(path_key(paths_[i].demand, paths_[i].lanes));
+      continue;
+    }
+    paths_[i].column = moved[paths_[i].column];
+    kept.push_back(std::move(paths_[i]));
+  }
+  paths_ = std::move(kept);
+  // The other columns were added first and are never dropped; remapped all the same.
+  level_col_ = moved[level_col_];
+  for (int& c : share_col_) c = moved[c];
+  for (int& c : growth_col_) c = moved[c];
+  stats_.paths_dropped += dropped;
 }
 
 void PathMaster::set_route_costs(bool on) {
@@ -131,7 +176,9 @@ LpStatus PathMaster::solve(LpSolver::Method first) {
     if (s != LpStatus::kOptimal) return s;
     if (routing_.k_paths > 0) return s;
     ++stats_.pricing_rounds;
+    const std::vector<char> stale = stale_paths();  // read before pricing changes the LP
     if (price() == 0) return s;
+    if (!stale.empty()) drop_paths(stale);  // only before a solve: the caller reads the last one
   }
   return LpStatus::kFailed;
 }

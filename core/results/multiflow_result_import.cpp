@@ -192,6 +192,7 @@ std::optional<MultiflowResult> read_multiflow_json(const Network& net, const std
   r.stats.simplex_iterations = count_of<long long>(stats, "simplex_iterations");
   r.stats.pricing_rounds = count_of<int>(stats, "pricing_rounds");
   r.stats.path_columns = count_of<int>(stats, "path_columns");
+  r.stats.paths_dropped = count_of<int>(stats, "paths_dropped");
   r.stats.saturation_tests = count_of<int>(stats, "saturation_tests");
   return r;
 }

@@ -12,7 +12,8 @@
 //                  amount level (FairOptions::amount_search off)
 //   --no-amount-search  only the latter
 //
-// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] FILE...
+//   --no-purge     keep every path priced in (FairOptions::path_pool 0)
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] FILE...
 #include <chrono>
 #include <cstdio>
 #include <cstring>
@@ -34,17 +35,19 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 
 int main(int argc, char** argv) {
   bool warm_up = false, cold = false, dual_rounds = false, amount_search = true;
+  double path_pool = apportion::FairOptions{}.path_pool;
   int first = 1;
   for (; first < argc && std::strncmp(argv[first], "--", 2) == 0; ++first) {
     if (std::strcmp(argv[first], "--warm-up") == 0) warm_up = true;
     else if (std::strcmp(argv[first], "--cold") == 0) cold = true;
-    else if (std::strcmp(argv[first], "--baseline") == 0) dual_rounds = true, amount_search = false;
+    else if (std::strcmp(argv[first], "--baseline") == 0) dual_rounds = true, amount_search = false, path_pool = 0;
     else if (std::strcmp(argv[first], "--no-amount-search") == 0) amount_search = false;
+    else if (std::strcmp(argv[first], "--no-purge") == 0) path_pool = 0;
     else return std::fprintf(stderr, "unknown option %s\n", argv[first]), 2;
   }
   if (first >= argc) {
     std::fprintf(stderr,
-                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] FILE...\n");
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -60,6 +63,7 @@ int main(int argc, char** argv) {
     opt.compare_throughput = false;
     opt.dual_rounds = dual_rounds;
     opt.amount_search = amount_search;
+    opt.path_pool = path_pool;
     apportion::MultiflowResult r;
     if (warm_up) timed_solve(*loaded.network, opt, r);
     const double ms = timed_solve(*loaded.network, opt, r);

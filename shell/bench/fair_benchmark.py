@@ -36,6 +36,7 @@ import time
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, os.path.join(HERE, "..", "..", "tests", "reference"))
+from topology_instance import topology_instance  # noqa: E402
 
 
 def instance(nodes, links_per_node, demands, seed):
@@ -103,29 +104,6 @@ def run_measured(cmd, budget):
             lines = err.read().strip().splitlines() or ["failed"]
             return None, lines[0].split(": ", 1)[-1][:60]
         return out.read().split(), usage.ru_maxrss / 1024.0
-
-
-def topology_instance(cli, graphml, demands, seed, path):
-    """The benchmark's instance on a real topology; returns the network as a dict."""
-    name = os.path.basename(graphml)[:-len(".graphml")]
-    speeds = name in ("Geant2012", "Uninett2010")
-    capacity = ["--capacity-attribute", "LinkSpeedRaw", "--default-capacity", "1e9"] if speeds else \
-        ["--default-capacity", "10"]
-    subprocess.run([cli, "convert", graphml, "--to", "json", path, "--undirected", "pairs"] + capacity,
-                   check=True, capture_output=True)
-    net = json.load(open(path))
-    rng = random.Random(seed)
-    ids = [v["id"] for v in net["nodes"]]
-    mass = {v: rng.uniform(1, 10) for v in ids}
-    pairs = sorted(((mass[i] * mass[j], i, j) for i in ids for j in ids if i != j), reverse=True)
-    pairs = pairs[:demands] if demands else pairs
-    total_cap = sum(a["capacity"] for a in net["arcs"])
-    g = sum(p[0] for p in pairs)
-    net["demands"] = [{"id": f"d{k}", "origin": i, "destination": j, "amount": 2 * total_cap / 6 * m / g}
-                      for k, (m, i, j) in enumerate(pairs)]
-    net["name"] = f"{name}, {len(pairs)} gravity demands"
-    json.dump(net, open(path, "w"))
-    return net
 
 
 def topologies(a, work):

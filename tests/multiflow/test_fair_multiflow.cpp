@@ -332,6 +332,42 @@ TEST_CASE("max-min: the amount search settles runs of amounts as one round each 
   CHECK(batched >= 5);
 }
 
+// Dropping unused path columns (path_master.h, the column pool) must change no result: the
+// same shares, tiers and levels as keeping every path, a result the independent checker
+// accepts, and the same optimum for the other objectives. A small pool makes the drops
+// happen on these small networks; the test requires that they did.
+TEST_CASE("column pool: dropping unused paths changes no result", "[fair][property]") {
+  std::mt19937_64 rng(4669);
+  int dropped = 0;
+  for (int i = 0; i < 30; ++i) {
+    const int nodes = 5 + static_cast<int>(rng() % 5);
+    Network net = random_network(rng, nodes, nodes + 6 + static_cast<int>(rng() % 10), 6 + static_cast<int>(rng() % 14));
+    for (Demand& d : net.demands)
+      if (rng() % 3 == 0) d.amount = 0.5 * static_cast<double>(1 + rng() % 8);
+    FairOptions pool, all;
+    pool.path_pool = 0.05, all.path_pool = 0;
+    const MultiflowResult a = solve_multiflow(net, pool), b = solve_multiflow(net, all);
+    INFO("instance " << i);
+    REQUIRE(a.status == SolveStatus::kOptimal);
+    REQUIRE(b.status == SolveStatus::kOptimal);
+    REQUIRE(a.check.ok);
+    CHECK(b.stats.paths_dropped == 0);
+    for (std::size_t k = 0; k < net.demands.size(); ++k) {
+      CHECK_THAT(a.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
+      CHECK(a.demands[k].tier == b.demands[k].tier);
+    }
+    REQUIRE(a.tiers.size() == b.tiers.size());
+    for (std::size_t t = 0; t < a.tiers.size(); ++t) CHECK_THAT(a.tiers[t].level, WithinAbs(b.tiers[t].level, 1e-7));
+    CHECK_THAT(a.max_throughput, WithinAbs(b.max_throughput, 1e-6));
+    pool.objective = all.objective = FairObjective::kMaxThroughput;
+    const MultiflowResult ta = solve_multiflow(net, pool), tb = solve_multiflow(net, all);
+    REQUIRE(ta.check.ok);
+    CHECK_THAT(ta.throughput, WithinAbs(tb.throughput, 1e-6));
+    dropped += a.stats.paths_dropped > 0;
+  }
+  CHECK(dropped >= 10);
+}
+
 TEST_CASE("max-min: a run of amount levels is settled in a few LPs", "[fair]") {
   // Twelve demands across one arc of capacity 100, amounts 1..12 (hand-derived: all fit,
   // 78 in all, so each demand gets its amount, in a tier of its own at its own level).
