@@ -288,12 +288,31 @@ try {
     check('corrupt file: the network is unchanged', f && f.network === lowmoor.network);
     await b.page.screenshot({ path: path.join(artefacts, 'corrupt-file.png') });
 
-    // 6. Share link.
+    // 6. Share link: copied to the clipboard and said so; the address bar keeps no fragment,
+    // so an edit made after copying survives a reload (the autosave opens, not the link).
+    await b.context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: base });
     const linkEvent = b.next('share-link');
+    const copiedEvent = b.next('share-copied');
     await b.act('share-link');
     shareLink = await linkEvent;
+    const copied = await copiedEvent;
     check('share link: made, with the network in the fragment only', typeof shareLink === 'string' &&
           shareLink.startsWith(`${base}/apportion.html#n=`), String(shareLink));
+    const clip = await b.page.evaluate(() => navigator.clipboard.readText());
+    check('share link: copied to the clipboard, and the page says so', clip === shareLink && copied &&
+          copied.notice.startsWith('Share link copied'), JSON.stringify(copied && copied.notice));
+    check('share link: the address bar keeps no fragment', !b.page.url().includes('#'), b.page.url());
+    let ed = b.next('edited');
+    await b.act('set network - name edited after sharing');
+    await ed;
+    const reopened = b.next('opened');
+    await b.page.reload();
+    const ro6 = await reopened;
+    check('share link: an edit made after copying the link survives a reload (autosave, not the link)',
+          ro6 && ro6.source === 'autosaved' && ro6.network === 'edited after sharing', JSON.stringify(ro6));
+    ed = b.next('edited');
+    await b.act(`set network - name ${lowmoor.network}`);
+    await ed;
 
     // 7. Autosave: a reload restores the relief network; earlier versions are kept.
     const versions = JSON.parse(await b.page.evaluate(() => apportionBridge.autosaveList()));
@@ -365,6 +384,7 @@ try {
           o.source === 'from a share link', JSON.stringify(o));
     const s = await solved;
     check('share link: the same shares', s && sameShares(s.shares, lowmoor.demands.map((d) => d.share)));
+    check('share link: once opened, the fragment leaves the address bar', !b.page.url().includes('#'), b.page.url());
     await b.page.screenshot({ path: path.join(artefacts, 'share-link.png') });
     await b.close();
   }
@@ -754,6 +774,13 @@ try {
       setTimeout(() => done(null), 2000);
     }));
     check('single file: the policy refuses outside connections', blocked === 'connect-src', String(blocked));
+    // A share link from a page opened as a file points into this computer: the page says how
+    // to share instead (copied or not: the clipboard may be refused to file:// pages).
+    const answered = Promise.race([b.next('share-copied'), b.next('share-not-copied')]);
+    await b.act('share-link');
+    const sa = await answered;
+    check('single file: a share link says how to share from a page opened as a file',
+          sa && sa.notice.includes('opened as a file') && sa.notice.includes('Save network'), JSON.stringify(sa && sa.notice));
     measurements.single_file_bytes = fs.statSync(path.join(webDir, 'apportion-single.html')).size;
     await b.close();
   }

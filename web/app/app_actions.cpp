@@ -380,6 +380,28 @@ bool add_pasted_table() {
   return true;
 }
 
+void receive_share_answer(const std::string& json_text) {
+  App& a = app();
+  const nlohmann::json j = nlohmann::json::parse(json_text, nullptr, false);
+  if (!j.is_object()) return;
+  const bool copied = j.contains("copied") && j["copied"].is_boolean() && j["copied"].get<bool>();
+  const bool local = j.contains("local") && j["local"].is_boolean() && j["local"].get<bool>();
+  const std::string link = j.contains("link") && j["link"].is_string() ? j["link"].get<std::string>() : "";
+  const std::string error = j.contains("error") && j["error"].is_string() ? j["error"].get<std::string>() : "";
+  if (link.empty()) {
+    a.notice = "The share link could not be made: " + error;
+  } else {
+    const std::string size = std::to_string(link.size() / 1024 + 1) + " KB";
+    a.notice = copied ? "Share link copied (" + size + "): whoever opens it gets this network as it is now; it "
+                        "travels only inside the link."
+                      : "The share link could not be copied for you (" + error + "); the browser showed it to copy by hand.";
+    if (local)
+      a.notice += " This page was opened as a file, so the link points into this computer. To share, send the "
+                  "page's file together with the network (Save network), or put the page where others can open it.";
+  }
+  report(copied ? "share-copied" : "share-not-copied");
+}
+
 void receive_paste(const std::string& text) {
   App& a = app();
   ImGuiIO& io = ImGui::GetIO();

@@ -169,6 +169,9 @@ const DemandTableRead& pasted_table();
 // Adds the table in app().matrix as one undoable edit; false (and matrix.error set) when it
 // has errors, with the document unchanged.
 bool add_pasted_table();
+// The answer to "Copy share link" (shell.html): says in the notice whether the link was
+// copied, and how to share from a page opened as a file.
+void receive_share_answer(const std::string& json_text);
 // Text pasted into the page (the browser's paste event): into the text field being edited,
 // else as a demands table into the "Add demands" dialog, which opens to show it.
 void receive_paste(const std::string& text);

@@ -258,6 +258,9 @@ EMSCRIPTEN_KEEPALIVE void apportion_solve_failed(int id, const char* message) {
   apportion::web::receive_solve_failure(id, message);
 }
 
+// How "Copy share link" went: {"copied", "link", "local" (opened from file://), "error"}.
+EMSCRIPTEN_KEEPALIVE void apportion_share_event(const char* json) { apportion::web::receive_share_answer(json); }
+
 // Autosave trouble and other tabs: "quota:<detail>" or "other-tab:<network name>".
 EMSCRIPTEN_KEEPALIVE void apportion_storage_event(const char* what) {
   const std::string s = what;

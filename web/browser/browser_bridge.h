@@ -14,8 +14,9 @@ void download_text(const std::string& filename, const std::string& mime, const s
 void download_canvas_png(const std::string& filename);
 // Opens the browser's file picker; chosen files arrive through apportion_receive_files().
 void open_file_picker();
-// Compresses the network JSON (deflate-raw, base64url) into the URL fragment "#n=...",
-// copies the link to the clipboard when allowed, and logs it for tests.
+// Compresses the network JSON (deflate-raw, base64url) into a link "PAGE#n=...", copies it
+// to the clipboard (or, refused, shows it in the browser's prompt to copy by hand) and
+// answers through apportion_share_event; the address bar is left as it is.
 void publish_share_link(const std::string& network_json);
 // Keeps the network JSON in local storage, restored when the page opens without a link.
 // The last kAutosaveVersions versions are kept; a failure (quota, blocked storage) is
@@ -31,7 +32,8 @@ void restore_autosave(int slot);
 void start_solve(int id, const std::string& request_json);
 // Terminates the worker, stopping a solve at once; the next start_solve starts a new one.
 void stop_solver();
-// At start: a network from the URL fragment, else from autosave; arrives like a file.
+// At start: a network from the URL fragment (which is then cleared from the address bar),
+// else from autosave; arrives like a file.
 void load_startup_network();
 
 }  // namespace apportion::web
