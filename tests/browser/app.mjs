@@ -253,11 +253,24 @@ try {
     const failedShares = await b.next('solved');
     check('failure what-if: taking l1-ab out changes the shares', failedShares && failedShares.status === 'optimal' &&
           !sameShares(failedShares.shares, harrowmere), JSON.stringify(failedShares && failedShares.shares));
+    check('failure what-if: the change column names the edit it follows',
+          failedShares && failedShares.change === 'change: since the result before "enabled of arc l1-ab"',
+          JSON.stringify(failedShares && failedShares.change));
     await b.page.screenshot({ path: path.join(artefacts, 'failure-what-if.png') });
     back = b.next('solved');
     await b.act('undo');
     const restoredShares = await back;
     check('undo of the failure restores the shares', restoredShares && sameShares(restoredShares.shares, harrowmere));
+    // A rule switch: the change column compares with the other rule's result, and says so.
+    back = b.next('solved');
+    await b.act('objective 2');
+    const ruled = await back;
+    check('rule switch: the change column names the rule it compares with',
+          ruled && ruled.change === 'change: since the result under "Max-min fair shares (weighted)"',
+          JSON.stringify(ruled && ruled.change));
+    back = b.next('solved');
+    await b.act('objective 0');
+    await back;
 
     // An invalid edit is not solved; its message selects the item.
     ev = b.next('invalid');
@@ -281,6 +294,8 @@ try {
     const os1 = await openedSolved;
     check('open: its shares equal the command line\'s', os1 && sameShares(os1.shares, lowmoor.demands.map((d) => d.share)),
           os1 && JSON.stringify(os1.shares));
+    check('open: no change column against the network opened before', os1 && os1.change === '',
+          JSON.stringify(os1 && os1.change));
 
     // 5. A corrupt file shows an error and keeps the network.
     const f = await openFile(b, writeTmp('corrupt.json', '{"format": "apportion-network", "version": 1, "nodes": ['), 'open-failed');

@@ -50,7 +50,8 @@ std::string state_json(const char* event) {
                       {"solving", a.solve.running}, {"nodes", a.doc.node_count()}, {"arcs", a.doc.arc_count()},
                       {"demands", a.doc.demands.size()}, {"undo", a.history.undo_name()},
                       {"redo", a.history.redo_name()}, {"other_tab_saved", a.other_tab_saved},
-                      {"auto_solve", a.auto_solve}, {"chart_bars", a.chart_bars}};
+                      {"auto_solve", a.auto_solve}, {"chart_bars", a.chart_bars},
+                      {"change", a.previous_shares.empty() ? std::string() : a.change_caption}};
   nlohmann::json shares = nlohmann::json::array();
   if (result_is_current())
     for (const auto& d : a.result.demands) shares.push_back(d.share);
@@ -114,6 +115,7 @@ void set_document(Network net, const std::string& name, bool save) {
   if (!placed) auto_layout(net);
   a.doc = std::move(net);
   ++a.doc_changes;
+  ++a.document_serial;
   a.doc_name = name;
   a.open_errors.clear();
   a.history.clear();
@@ -140,6 +142,7 @@ void request_solve() {
   const int id = s.id + 1;
   s = RunningSolve{};
   s.running = true, s.id = id, s.started_ms = emscripten_get_now(), s.revision = a.revision, s.doc = a.doc;
+  s.document = a.document_serial, s.objective = a.objective;
   nlohmann::json request = {{"network", write_network_json(a.doc)}, {"objective", objective_name(a.options.objective)},
                             {"epsilon", a.options.epsilon}, {"hop_limit", a.options.routing.hop_limit},
                             {"k_paths", a.options.routing.k_paths}};
@@ -206,16 +209,27 @@ void receive_solve_result(int id, const std::string& text) {
     }
   }
   a.previous_shares.clear();
-  if (a.result.status == SolveStatus::kOptimal && r.status == SolveStatus::kOptimal) {
+  a.change_caption.clear();
+  // The change column compares with the last result of the same network only: a newly
+  // opened file's demands share ids with the old one's by chance, not by meaning.
+  if (a.result.status == SolveStatus::kOptimal && r.status == SolveStatus::kOptimal &&
+      a.result_document == a.solve.document) {
     for (std::size_t k = 0; k < a.result.demands.size() && k < a.result_doc_ids.size(); ++k)
       a.previous_shares[a.result_doc_ids[k]] = a.result.demands[k].share;
+    const std::string edit = a.history.undo_name();
+    if (a.result_objective != a.solve.objective && a.result_objective >= 0)
+      a.change_caption = std::string("change: since the result under \"") + kObjectiveLabels[a.result_objective] + "\"";
+    else if (a.result_revision != a.solve.revision && !edit.empty())
+      a.change_caption = "change: since the result before \"" + edit + "\"";
+    else
+      a.change_caption = "change: since the previous result";
   }
+  a.result_document = a.solve.document, a.result_objective = a.solve.objective;
   a.result = std::move(r);
   ++a.result_changes;
   a.result_revision = a.solve.revision;
   a.result_doc_ids.clear();
   for (const Demand& d : a.solve.doc.demands) a.result_doc_ids.push_back(d.id);
-  a.result_edit = a.history.undo_name();
   a.solve.doc = Network{};
   report("solved");
   pause_auto_solve_after(emscripten_get_now() - a.solve.started_ms, "The last solve");

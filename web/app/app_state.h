@@ -27,6 +27,8 @@ struct RunningSolve {
   int id = 0;                 // of the newest request; answers to older ones are ignored
   double started_ms = 0;
   long long revision = -1;    // the document revision it solves
+  long long document = -1;    // App::document_serial of the network it solves
+  int objective = 0;          // index into kObjectives
   Network doc;                // the document as sent, to read the answer against
   std::string stage;
   int round = 0, settled = 0, demands = 0, lp_solves = 0;
@@ -96,10 +98,14 @@ struct App {
   double auto_solve_pause_ms = 3000;
   MultiflowResult result;
   long long result_revision = -1;
-  // Shares of the result before this one, by demand id: what the last edit changed.
+  // Shares of the result before this one, by demand id: what the last edit changed. Only
+  // results of the same network compare: each opened network gets a new serial.
   std::unordered_map<std::string, double> previous_shares;
+  std::string change_caption;      // what previous_shares is the result before, for the table
+  long long document_serial = 0;   // bumps when another network is opened (not on edits)
+  long long result_document = -1;  // the serial of the network `result` belongs to
+  int result_objective = -1;
   std::vector<std::string> result_doc_ids;  // demand ids of the document the result solves
-  std::string result_edit;                   // the last edit before that solve (the undo name)
   RunningSolve solve;
 
   std::vector<std::string> open_errors;  // from the last failed open, shown until dismissed

@@ -94,7 +94,7 @@ void draw_result_panel() {
   }
 
   const bool have_change = !a.previous_shares.empty();
-  if (have_change) ImGui::TextDisabled("change: since the result before \"%s\"", a.result_edit.c_str());
+  if (have_change) ImGui::TextDisabled("%s", a.change_caption.c_str());
   filter_box("##share-filter", a.share_view, "filter: id, label, origin or destination");
   const std::vector<int>& rows = share_rows();
   ImGui::SameLine();
