@@ -55,8 +55,16 @@ function instrument(page) {
   const waiters = [];
   const dialogs = [];
   page.on('dialog', (d) => { dialogs.push(d.message()); d.dismiss().catch(() => {}); });
+  // What a user would see in the browser's console: errors, warnings, failed loads. Chromium's
+  // own "GL Driver Message" lines come from its software WebGL (SwiftShader, headless), not
+  // from the page, and are left out.
+  const problems = [];
+  page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+  page.on('response', (r) => { if (r.status() >= 400) problems.push(`HTTP ${r.status()} ${r.url()}`); });
   page.on('console', (m) => {
     const t = m.text();
+    if ((m.type() === 'error' || m.type() === 'warning') && !t.includes('GL Driver Message'))
+      problems.push(`${m.type()}: ${t.slice(0, 300)}`);
     const match = /^apportion:([a-z-]+) (.*)$/s.exec(t);
     if (!match) return;
     let data = match[2];
@@ -77,7 +85,7 @@ function instrument(page) {
   }, what);
   const positions = async () => { const p = next('positions'); await act('positions'); return p; };
   const state = async () => { const p = next('state'); await act('state'); return p; };
-  return { page, requests, next, act, positions, state, seen, dialogs };
+  return { page, requests, next, act, positions, state, seen, dialogs, problems };
 }
 
 // A browser with a fresh profile. Device pixel ratio 2 checks HiDPI; frame-rate checks use
@@ -139,7 +147,16 @@ try {
     });
     check('page sets a restrictive Content-Security-Policy', csp.includes("default-src 'none'") &&
           csp.includes("connect-src 'self'") && !csp.includes('*'), csp);
+    const unzoomed = await b.positions();
+    await b.page.mouse.move(900, 450);
+    await b.page.mouse.wheel(0, -240);  // a zoom
     await b.page.waitForTimeout(300);
+    const zoomed = await b.positions();
+    const [zid] = Object.keys(unzoomed.nodes);
+    check('served: the wheel zooms the canvas', zoomed && unzoomed &&
+          JSON.stringify(zoomed.nodes[zid]) !== JSON.stringify(unzoomed.nodes[zid]), JSON.stringify([unzoomed.nodes[zid], zoomed.nodes[zid]]));
+    check('served: a clean console after load, solve and zoom (no error, warning or failed load)',
+          b.problems.length === 0, JSON.stringify(b.problems));
     await b.page.screenshot({ path: path.join(artefacts, 'served.png') });
 
     // 2. Export the shares as CSV and compare with the command line's result.
@@ -778,7 +795,11 @@ try {
     const r = await solved;
     check('single file: demo shares (worker from a Blob URL) equal the command line\'s',
           r && sameShares(r.shares, harrowmere), JSON.stringify(r));
+    await b.page.mouse.move(900, 450);
+    await b.page.mouse.wheel(0, -240);
     await b.page.waitForTimeout(300);
+    check('single file: a clean console after load, solve and zoom (no error, warning or failed load)',
+          b.problems.length === 0, JSON.stringify(b.problems));
     await b.page.screenshot({ path: path.join(artefacts, 'single-file.png') });
     const foreign = b.requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:') && !u.startsWith('blob:'));
     check('single file: no request leaves the machine', foreign.length === 0, foreign.join(' '));

@@ -308,6 +308,15 @@ int main() {
     ImGui_ImplGlfw_CursorPosCallback(w, x / s, y / s);
   });
   ImGui_ImplGlfw_CursorEnterCallback(app().window, GLFW_TRUE);
+  // The backend listens for the wheel on the document, where browsers make listeners passive,
+  // so its preventDefault logged an error on every zoom. The wheel is taken on the canvas
+  // instead (not passive), at the same rate: a step per 100 pixels, 3 lines or 1/80 page.
+  emscripten_set_wheel_callback(EMSCRIPTEN_EVENT_TARGET_DOCUMENT, nullptr, false, nullptr);
+  emscripten_set_wheel_callback("#canvas", nullptr, false, [](int, const EmscriptenWheelEvent* ev, void*) -> EM_BOOL {
+    const double per_step = ev->deltaMode == DOM_DELTA_PIXEL ? 100.0 : ev->deltaMode == DOM_DELTA_LINE ? 3.0 : 1.0 / 80.0;
+    ImGui::GetIO().AddMouseWheelEvent(static_cast<float>(-ev->deltaX / per_step), static_cast<float>(-ev->deltaY / per_step));
+    return EM_TRUE;
+  });
   ImGui_ImplOpenGL3_Init("#version 300 es");
   app().dpr = 0;  // forces apply_scale on the first frame
   if (demo.ok()) apportion::web::set_document(std::move(*demo.network), "demo network", /*save=*/false);
