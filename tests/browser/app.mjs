@@ -155,6 +155,7 @@ try {
     const [zid] = Object.keys(unzoomed.nodes);
     check('served: the wheel zooms the canvas', zoomed && unzoomed &&
           JSON.stringify(zoomed.nodes[zid]) !== JSON.stringify(unzoomed.nodes[zid]), JSON.stringify([unzoomed.nodes[zid], zoomed.nodes[zid]]));
+    await b.act('fit');  // the view as before, for the clicks below
     check('served: a clean console after load, solve and zoom (no error, warning or failed load)',
           b.problems.length === 0, JSON.stringify(b.problems));
     await b.page.screenshot({ path: path.join(artefacts, 'served.png') });
@@ -273,11 +274,25 @@ try {
     check('failure what-if: the change column names the edit it follows',
           failedShares && failedShares.change === 'change: since the result before "enabled of arc l1-ab"',
           JSON.stringify(failedShares && failedShares.change));
+    await b.page.waitForTimeout(200);
+    const failedView = await b.positions();
+    check('failure what-if: the arc out of service is drawn dashed and crossed, and only it',
+          failedView && JSON.stringify(failedView.out_of_service) === '["l1-ab"]', JSON.stringify(failedView && failedView.out_of_service));
     await b.page.screenshot({ path: path.join(artefacts, 'failure-what-if.png') });
     back = b.next('solved');
     await b.act('undo');
     const restoredShares = await back;
     check('undo of the failure restores the shares', restoredShares && sameShares(restoredShares.shares, harrowmere));
+    // One demand shown on the canvas: its origin and destination are marked.
+    const north = expected('harrowmere-fibre').demands.find((d) => d.id === 'd-north');
+    await b.act('show demand d-north');
+    await b.page.waitForTimeout(200);
+    const shown = await b.positions();
+    check('show one demand: its origin and destination are marked on the canvas',
+          shown && shown.origin === north.origin && shown.destination === north.destination && shown.out_of_service.length === 0,
+          JSON.stringify(shown && [shown.origin, shown.destination, north.origin, north.destination]));
+    await b.page.screenshot({ path: path.join(artefacts, 'one-demand.png') });
+    await b.act('show demand none');
     // A rule switch: the change column compares with the other rule's result, and says so.
     back = b.next('solved');
     await b.act('objective 2');

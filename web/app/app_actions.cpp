@@ -649,6 +649,9 @@ void action(const std::string& what) {
       a.notice = a.matrix.error;
       report("table-refused");
     }
+  } else if (what.rfind("show demand ", 0) == 0) {  // the canvas filter "show on the canvas"
+    a.view.filter_demand = a.doc.find_demand(what.substr(12));
+    a.view.filter_tier = 0;
   } else if (what == "matrix-dialog") {
     a.matrix_dialog_requested = true;
   } else if (what.rfind("matrix ", 0) == 0) {

@@ -136,9 +136,17 @@ void report_positions() {
   nlohmann::json nodes = nlohmann::json::object();
   for (int v = 0; v < a.doc.node_count() && 2 * v + 1 < static_cast<int>(a.view.node_screen.size()); ++v)
     nodes[a.doc.nodes[v].id] = {a.view.node_screen[2 * v], a.view.node_screen[2 * v + 1]};
+  nlohmann::json out_of_service = nlohmann::json::array();  // arcs the last frame drew dashed
+  for (int e : a.view.drawn_out_of_service)
+    if (e >= 0 && e < a.doc.arc_count()) out_of_service.push_back(a.doc.arcs[e].id);
   nlohmann::json s = {{"nodes", nodes},
                       {"canvas", {a.view.canvas_x, a.view.canvas_y, a.view.canvas_w, a.view.canvas_h}},
                       {"canvas_ms", a.view.frame_ms},
+                      {"out_of_service", out_of_service},
+                      {"origin", a.view.drawn_origin >= 0 && a.view.drawn_origin < a.doc.node_count()
+                                     ? a.doc.nodes[a.view.drawn_origin].id : ""},
+                      {"destination", a.view.drawn_destination >= 0 && a.view.drawn_destination < a.doc.node_count()
+                                          ? a.doc.nodes[a.view.drawn_destination].id : ""},
                       {"fps", ImGui::GetIO().Framerate}};
   std::printf("apportion:positions %s\n", s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace).c_str());
 }

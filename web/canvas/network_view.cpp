@@ -14,7 +14,8 @@ namespace {
 // Okabe-Ito colours (M. Okabe, K. Ito, "Color Universal Design", 2008), readable with the
 // common colour-vision deficiencies, for what is picked out on top of the utilisation scale.
 constexpr ImU32 kFocus = IM_COL32(230, 159, 0, 255);      // orange: the filtered demand's or tier's flow
-constexpr ImU32 kBinding = IM_COL32(213, 94, 0, 255);     // vermillion: binding arcs
+constexpr ImU32 kBinding = IM_COL32(204, 121, 167, 255);  // reddish purple: binding arcs (apart from the orange flow)
+constexpr ImU32 kOutOfService = IM_COL32(190, 195, 205, 230);  // light grey: dashes and the cross
 constexpr ImU32 kSelected = IM_COL32(86, 180, 233, 255);  // sky blue: selection
 constexpr ImU32 kMatch = IM_COL32(240, 228, 66, 255);     // yellow: search matches
 constexpr ImU32 kInk = IM_COL32(230, 232, 236, 255);
@@ -123,6 +124,8 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     for (int e : *binding)
       if (e >= 0 && e < net.arc_count()) arc_binding[e] = 1;
   const float time = static_cast<float>(ImGui::GetTime());
+  view.drawn_out_of_service.clear();
+  view.drawn_origin = view.drawn_destination = -1;
   int hover_arc = -1;
   float best = 8 * ui_scale;
   for (int a = 0; a < net.arc_count(); ++a) {
@@ -143,9 +146,28 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
         if (in_focus(k)) focus_flow += f;
     if (arc_selected[a]) dl->AddLine(p, q, kSelected, width + 6 * ui_scale);
     if (arc_binding[a]) dl->AddLine(p, q, kBinding, width + 4 * ui_scale);
+    if (!arc.enabled) {
+      // Out of service: dashes, and a cross at the middle that stays readable when zoomed out.
+      const float dash = 7 * ui_scale, gap = 5 * ui_scale, w = std::max(2.0f * ui_scale, width * 0.6f);
+      for (float d = 0; d < geo.length; d += dash + gap) {
+        const float t0 = d / geo.length, t1 = std::min(1.0f, (d + dash) / geo.length);
+        dl->AddLine(ImVec2(p.x + (q.x - p.x) * t0, p.y + (q.y - p.y) * t0),
+                    ImVec2(p.x + (q.x - p.x) * t1, p.y + (q.y - p.y) * t1), kOutOfService, w);
+      }
+      const ImVec2 m((p.x + q.x) / 2, (p.y + q.y) / 2);
+      const float c = 6 * ui_scale;
+      dl->AddCircleFilled(m, c + 3 * ui_scale, IM_COL32(29, 32, 38, 255));
+      dl->AddLine(ImVec2(m.x - c, m.y - c), ImVec2(m.x + c, m.y + c), kOutOfService, 2.5f * ui_scale);
+      dl->AddLine(ImVec2(m.x - c, m.y + c), ImVec2(m.x + c, m.y - c), kOutOfService, 2.5f * ui_scale);
+      view.drawn_out_of_service.push_back(a);
+      if (hovered && hover_node < 0) {
+        const float dd = distance_to_segment(mouse, p, q);
+        if (dd < best) best = dd, hover_arc = a;
+      }
+      continue;
+    }
     ImU32 colour;
-    if (!arc.enabled) colour = IM_COL32(100, 100, 100, 128);
-    else if (filtering) colour = focus_flow != 0 ? kFocus : IM_COL32(140, 150, 165, 64);
+    if (filtering) colour = focus_flow != 0 ? kFocus : IM_COL32(140, 150, 165, 64);
     else colour = load ? to_imgui(utilisation_colour(load->utilisation)) : IM_COL32(140, 150, 165, 255);
     dl->AddLine(p, q, colour, width);
     if (!arc.shared_two_way && geo.length > 4 * node_r) {  // an arrowhead at two thirds of the way
@@ -193,6 +215,15 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     if (match) dl->AddCircle(c, node_r + 6 * ui_scale, kMatch, 0, 2.5f * ui_scale);
     if (selected || v == view.pending_from) dl->AddCircleFilled(c, node_r + 3 * ui_scale, kSelected);
     dl->AddCircleFilled(c, node_r, kInk);
+    if (focus_demand >= 0 && (v == net.demands[focus_demand].origin || v == net.demands[focus_demand].destination)) {
+      // The filtered demand's ends: a ring in the flow's colour and a word below.
+      const bool from = v == net.demands[focus_demand].origin;
+      dl->AddCircle(c, node_r + 5 * ui_scale, kFocus, 0, 3 * ui_scale);
+      const char* word = from ? "origin" : "destination";
+      const ImVec2 size = ImGui::CalcTextSize(word);
+      dl->AddText(ImVec2(c.x - size.x / 2, c.y + node_r + 8 * ui_scale), kFocus, word);
+      (from ? view.drawn_origin : view.drawn_destination) = v;
+    }
     by_importance.push_back(v);
   }
   auto must_show = [&](int v) {
@@ -306,8 +337,10 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
       dl->AddRectFilled(ImVec2(l0.x + w * i / 32, l0.y), ImVec2(l0.x + w * (i + 1) / 32, l0.y + h),
                         to_imgui(utilisation_colour(i / 31.0)));
     dl->AddText(ImVec2(l0.x, l0.y - 16 * ui_scale), kInk,
-                filtering ? "orange: flow in the filter; red outline: its binding arcs"
+                filtering ? "orange: flow in the filter; purple outline: its binding arcs"
                           : "arc utilisation 0 %  (width: capacity; dots move with the flow)");
+    if (!view.drawn_out_of_service.empty())
+      dl->AddText(ImVec2(l0.x, l0.y - 34 * ui_scale), kOutOfService, "dashed and crossed: out of service");
     dl->AddText(ImVec2(l0.x + w + 6 * ui_scale, l0.y - 2 * ui_scale), kInk, "100 %");
   }
   dl->PopClipRect();

@@ -2,7 +2,8 @@
 // mouse on them. Arc width follows capacity and colour follows utilisation (legend
 // included); marks move along each loaded arc in the direction of its flow, faster the
 // fuller it is. A filter shows one demand or one tier in its own colour, with the binding
-// arcs outlined. Hovering an arc shows capacity, load, load per demand and shadow price.
+// arcs outlined in another (and one demand's origin and destination marked). Arcs out of
+// service are dashed and crossed at their middle: the picture of a failure. Hovering an arc shows capacity, load, load per demand and shadow price.
 //
 // Immediate mode: the canvas reads the document, the result and the selection and never
 // changes them. What the mouse asked for comes back as CanvasInput, and the app turns it
@@ -42,6 +43,10 @@ struct ViewState {
   std::vector<float> node_screen;
   float canvas_x = 0, canvas_y = 0, canvas_w = 0, canvas_h = 0;
   double frame_ms = 0;         // how long the last canvas took to build, for the status line
+  // What the last frame marked, for the test hook: arcs drawn dashed as out of service, and
+  // the filtered demand's origin and destination.
+  std::vector<int> drawn_out_of_service;
+  int drawn_origin = -1, drawn_destination = -1;
 };
 
 struct CanvasInput {
