@@ -171,14 +171,21 @@ try {
           JSON.stringify(csvShares));
     const svgDl = b.page.waitForEvent('download');
     await b.act('export-svg');
-    const svg = fs.readFileSync(await (await svgDl).path(), 'utf8');
+    const svgDownload = await svgDl;
+    const svg = fs.readFileSync(await svgDownload.path(), 'utf8');
     check('SVG export: a picture with a legend and the caution', svg.startsWith('<svg') &&
           svg.includes('arc utilisation') && svg.includes('planning aid'));
     const pngDl = b.page.waitForEvent('download');
     await b.act('export-png');
-    const png = fs.readFileSync(await (await pngDl).path());
+    const pngDownload = await pngDl;
+    const png = fs.readFileSync(await pngDownload.path());
     check('PNG export: a PNG image of the canvas', png.length > 1000 && png.subarray(1, 4).toString() === 'PNG',
           `${png.length} bytes`);
+    const names = [download.suggestedFilename(), svgDownload.suggestedFilename(), pngDownload.suggestedFilename()];
+    check('exports: file names follow one pattern, <network name, hyphenated>.<what>.<ext>',
+          JSON.stringify(names) === JSON.stringify(['Harrowmere-Province-regional-fibre-backbone.demands.csv',
+            'Harrowmere-Province-regional-fibre-backbone.picture.svg', 'Harrowmere-Province-regional-fibre-backbone.canvas.png']),
+          JSON.stringify(names));
     fs.writeFileSync(path.join(artefacts, 'exported.png'), png);
     fs.writeFileSync(path.join(artefacts, 'exported.svg'), svg);
 
@@ -761,7 +768,8 @@ try {
           JSON.stringify([pwned, b.dialogs, nodesInDom]));
     const svgDl = b.page.waitForEvent('download');
     await b.act('export-svg');
-    const svg = fs.readFileSync(await (await svgDl).path(), 'utf8');
+    const svgDownload = await svgDl;
+    const svg = fs.readFileSync(await svgDownload.path(), 'utf8');
     check('hostile names: the SVG escapes them', !svg.includes('<script') && !svg.includes('<img') &&
           svg.includes('&lt;script&gt;') && !/[\u0000-\u0008\u000b\u001b]/.test(svg));
     const csvDl = b.page.waitForEvent('download');

@@ -10,8 +10,9 @@ import random
 import subprocess
 
 
-def topology_instance(cli, graphml, demands, seed, path):
-    """Writes the instance to `path` (JSON) and returns it as a dict; demands 0: all pairs."""
+def topology_instance(cli, graphml, demands, seed, path, decimals=None):
+    """Writes the instance to `path` (JSON) and returns it as a dict; demands 0: all pairs;
+    `decimals`: amounts rounded so, as a table typed or exported by a planner holds them."""
     name = os.path.basename(graphml)[:-len(".graphml")]
     speeds = name in ("Geant2012", "Uninett2010")
     capacity = ["--capacity-attribute", "LinkSpeedRaw", "--default-capacity", "1e9"] if speeds else \
@@ -26,7 +27,8 @@ def topology_instance(cli, graphml, demands, seed, path):
     pairs = pairs[:demands] if demands else pairs
     total_cap = sum(a["capacity"] for a in net["arcs"])
     g = sum(p[0] for p in pairs)
-    net["demands"] = [{"id": f"d{k}", "origin": i, "destination": j, "amount": 2 * total_cap / 6 * m / g}
+    amount = (lambda x: x) if decimals is None else (lambda x: round(x, decimals))
+    net["demands"] = [{"id": f"d{k}", "origin": i, "destination": j, "amount": amount(2 * total_cap / 6 * m / g)}
                       for k, (m, i, j) in enumerate(pairs)]
     net["name"] = f"{name}, {len(pairs)} gravity demands"
     json.dump(net, open(path, "w"))

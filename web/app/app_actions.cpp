@@ -70,12 +70,21 @@ std::string state_json(const char* event) {
   return s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
 }
 
+}  // namespace
+
+// Every download is "<stem>.<what>.<ext>" (the network itself "<stem>.json"): the stem is the
+// network's name with each run of other characters one hyphen, "network" when none is left.
 std::string file_stem() {
-  std::string s = app().doc.name.empty() ? "network" : app().doc.name;
-  for (char& c : s)
-    if (!std::isalnum(static_cast<unsigned char>(c))) c = '-';
-  return s;
+  std::string s;
+  for (char c : app().doc.name) {
+    if (std::isalnum(static_cast<unsigned char>(c)) || static_cast<unsigned char>(c) >= 0x80) s += c;  // UTF-8 kept
+    else if (!s.empty() && s.back() != '-') s += '-';
+  }
+  while (!s.empty() && s.back() == '-') s.pop_back();
+  return s.empty() ? "network" : s;
 }
+
+namespace {
 
 // Keeps the selection inside the document after items were removed or undone.
 void clamp_selection() {
@@ -572,7 +581,7 @@ void action(const std::string& what) {
     download_text(file_stem() + ".arcs.csv", "text/csv", multiflow_arcs_csv(a.doc, *r));
   else if (what == "export-paths-csv" && r)
     download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(a.doc, *r));
-  else if (what == "export-svg") download_text(file_stem() + ".svg", "image/svg+xml", network_svg(a.doc, r));
+  else if (what == "export-svg") download_text(file_stem() + ".picture.svg", "image/svg+xml", network_svg(a.doc, r));
   else if (what == "export-png") a.png_requested = true;
   else if (what == "export-matrix-csv")
     download_text(file_stem() + ".matrix.csv", "text/csv", write_matrix_csv(a.doc).text);

@@ -170,6 +170,8 @@ bool add_matrix_demands();
 // demands are added to the open network as one undoable
 // edit (weight 1), or its errors shown with the document unchanged.
 void add_single_csv(const std::string& name, const std::string& text);
+// The name every download starts with (the network's name, made safe for a file name).
+std::string file_stem();
 // The table in app().matrix, read against the document as it is now (cached).
 const DemandTableRead& pasted_table();
 // Adds the table in app().matrix as one undoable edit; false (and matrix.error set) when it

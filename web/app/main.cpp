@@ -210,7 +210,7 @@ void frame() {
   ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
   if (a.png_requested) {  // read the canvas now, while this frame's pixels are in it
     a.png_requested = false;
-    download_canvas_png(a.doc.name.empty() ? "network.png" : a.doc.name + ".png");
+    download_canvas_png(file_stem() + ".canvas.png");
   }
   if (!a.first_frame_reported) {
     a.first_frame_reported = true;
