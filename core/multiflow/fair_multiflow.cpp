@@ -721,7 +721,10 @@ MultiflowResult Engine::run() {
     }
   }
   totals(r);
-  if (opt_.objective == FairObjective::kFeasibility) r.price_of_fairness = -1.0;
+  // The price of fairness is what a fair rule gives up against the most throughput; the
+  // throughput rule gives up nothing by its definition, and feasibility has no fairness.
+  if (opt_.objective == FairObjective::kFeasibility || opt_.objective == FairObjective::kMaxThroughput)
+    r.price_of_fairness = -1.0;
   const MultiflowStats& ms = master_.stats();
   r.stats.lp_solves = ms.lp_solves;
   r.stats.simplex_iterations = ms.simplex_iterations;

@@ -116,6 +116,12 @@ TEST_CASE("max-min: Kelly's line network gives every route one half", "[fair][re
     CHECK_THAT(r.max_throughput, WithinAbs(n, 1e-9));
     CHECK_THAT(r.price_of_fairness, WithinAbs((n - (n + 1) / 2.0) / n, 1e-9));
     CHECK_THAT(r.jain_index, WithinAbs(1.0, 1e-12));
+    // The throughput rule itself has no price of fairness to report: nothing is given up.
+    FairOptions most;
+    most.objective = FairObjective::kMaxThroughput;
+    const MultiflowResult t = solve_multiflow(b.net, most);
+    CHECK_THAT(t.throughput, WithinAbs(n, 1e-9));
+    CHECK(t.price_of_fairness < 0);
   }
 }
 
