@@ -731,6 +731,7 @@ MultiflowResult Engine::run() {
   r.stats.pricing_rounds = ms.pricing_rounds;
   r.stats.path_columns = ms.path_columns;
   r.stats.paths_dropped = ms.paths_dropped;
+  r.stats.paths_restored = ms.paths_restored;
   r.status = SolveStatus::kOptimal;  // until the check, which the caller runs in the file's units
   return r;
 }
@@ -785,6 +786,7 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     r.stats.pricing_rounds += first.pricing_rounds;
     r.stats.path_columns += first.path_columns;
     r.stats.paths_dropped += first.paths_dropped;
+    r.stats.paths_restored += first.paths_restored;
     r.stats.saturation_tests += first.saturation_tests;
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {

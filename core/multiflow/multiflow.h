@@ -122,7 +122,8 @@ struct MultiflowStats {
   long long simplex_iterations = 0;
   int pricing_rounds = 0;
   int path_columns = 0;      // paths priced in (a dropped path priced in again counts again)
-  int paths_dropped = 0;     // unused paths dropped from the LP (FairOptions::purge_paths)
+  int paths_dropped = 0;     // unused paths dropped from the LP (FairOptions::path_pool)
+  int paths_restored = 0;    // times the dropped paths all came back for an infeasible LP
   int saturation_tests = 0;  // LPs run to settle zero-dual demands
 };
 

@@ -116,6 +116,7 @@ void PathMaster::drop_paths(const std::vector<char>& stale) {
   for (std::size_t i = 0; i < paths_.size(); ++i) {  // paths priced in after `stale` was read stay
     if (i < stale.size() && stale[i]) {
       known_.erase(path_key(paths_[i].demand, paths_[i].lanes));
+      dropped_.push_back({paths_[i].demand, std::move(paths_[i].lanes)});
       continue;
     }
     paths_[i].column = moved[paths_[i].column];
@@ -173,6 +174,17 @@ LpStatus PathMaster::solve(LpSolver::Method first) {
     const LpStatus s = lp_.solve();
     ++stats_.lp_solves;
     stats_.simplex_iterations = lp_.total_iterations();
+    if (s == LpStatus::kInfeasible && !dropped_.empty()) {
+      // A change that moved off the last solution (the amount search's tests) can need a
+      // path that was dropped: the restricted LP is then infeasible where the full one is
+      // not. Every dropped path comes back, which restores the column set of an engine that
+      // never drops (that set held every earlier solution), and the LP is solved again.
+      std::vector<std::pair<int, std::vector<int>>> back = std::move(dropped_);
+      dropped_.clear();
+      for (auto& [k, lanes] : back) add_path(k, std::move(lanes));
+      ++stats_.paths_restored;
+      continue;
+    }
     if (s != LpStatus::kOptimal) return s;
     if (routing_.k_paths > 0) return s;
     ++stats_.pricing_rounds;

@@ -19,7 +19,8 @@
 // prices all columns, so the unused ones cost time on every iteration. When the paths
 // outnumber the rows path_pool times (2 by default), those out of the basis, at zero, with a reduced cost above the
 // pricing tolerance are dropped before the next solve; the basis stays valid, and a dropped
-// path that becomes attractive again is priced back in (the standard column management of
+// path that becomes attractive again is priced back in. An LP that turns infeasible gets
+// every dropped path back and is solved again (see solve()) (the standard column management of
 // column generation: G. Desaulniers, J. Desrosiers, M. Solomon (eds.), "Column Generation",
 // 2005, ch. 1 -- from memory).
 #pragma once
@@ -95,6 +96,7 @@ class PathMaster {
   double path_pool_ = 2.0;
   std::vector<MasterPath> paths_;
   std::unordered_set<std::string> known_;  // demand and lanes of every path, to refuse repeats
+  std::vector<std::pair<int, std::vector<int>>> dropped_;  // demand and lanes, until restored
   std::vector<std::vector<int>> demands_by_origin_;
   MultiflowStats stats_;
 };

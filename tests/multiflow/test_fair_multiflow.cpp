@@ -353,7 +353,7 @@ TEST_CASE("column pool: dropping unused paths changes no result", "[fair][proper
     FairOptions pool, all;
     pool.path_pool = 0.05, all.path_pool = 0;
     const MultiflowResult a = solve_multiflow(net, pool), b = solve_multiflow(net, all);
-    INFO("instance " << i);
+    INFO("instance " << i << ": " << a.message);
     REQUIRE(a.status == SolveStatus::kOptimal);
     REQUIRE(b.status == SolveStatus::kOptimal);
     REQUIRE(a.check.ok);
