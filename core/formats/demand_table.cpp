@@ -3,7 +3,6 @@
 
 #include <algorithm>
 #include <cctype>
-#include <unordered_map>
 #include <unordered_set>
 
 #include "apportion/formats/csv_table.h"
@@ -11,6 +10,7 @@
 #include "apportion/model/node_names.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/size_limits.h"
+#include "apportion/model/traffic_matrix.h"
 #include "apportion/model/validation.h"
 
 namespace apportion {
@@ -118,8 +118,7 @@ DemandTableRead read_demand_table(const Network& net, const std::string& text, b
     }
     if (good && k.origin == k.destination) fail(r, kDestination, "the same node as the origin"), good = false;
     if (const std::string a = cell(kAmount); !a.empty() && lowered(a) != "max") {
-      std::string why;
-      const std::optional<double> v = parse_number(a, &why);
+      const std::optional<double> v = parse_number(a);
       if (!v || *v < 0 || *v > SizeLimits::kMaxMagnitude)
         fail(r, kAmount, "'" + a + "' is not an amount: a number from 0 to 1e15, or empty or max for as much as possible"), good = false;
       else
@@ -153,16 +152,10 @@ DemandTableRead read_demand_table(const Network& net, const std::string& text, b
   if (errors == 0 && out.demands.empty()) d.error("file", "", "", "the table has no demand rows below its first row");
   // Ids for the rows without one, after every written id is known: a written id is never
   // renamed for a generated one.
-  // The next suffix per base, so that many rows of one pair stay linear.
-  std::unordered_map<std::string, int> next_suffix;
+  PairIds ids(std::move(taken));
   for (std::size_t i : rows_without_id) {
     Demand& k = out.demands[i];
-    std::string base = net.nodes[k.origin].id + "-" + net.nodes[k.destination].id;
-    if (base.size() + 12 > SizeLimits::kMaxStringLength) base = "d" + std::to_string(i + 1);  // ids near the limit
-    int& s = next_suffix.emplace(base, 1).first->second;
-    k.id = s == 1 ? base : base + "-" + std::to_string(s);
-    while (!taken.insert(k.id).second) k.id = base + "-" + std::to_string(++s);
-    ++s;
+    k.id = ids.next(net, k.origin, k.destination, i + 1);
   }
   out.generated_ids = static_cast<int>(rows_without_id.size());
   if (!out.ok()) out.demands.clear();

@@ -83,18 +83,25 @@ TrafficMatrixResult add_traffic_matrix(Network& net, const TrafficMatrixSpec& sp
   return r;
 }
 
+std::string PairIds::next(const Network& net, int origin, int destination, std::size_t fallback) {
+  std::string base = net.nodes[origin].id + "-" + net.nodes[destination].id;
+  if (base.size() + 12 > SizeLimits::kMaxStringLength) base = "d" + std::to_string(fallback);
+  int& s = next_suffix_.emplace(base, 1).first->second;
+  std::string id = s == 1 ? base : base + "-" + std::to_string(s);
+  while (!taken_.insert(id).second) id = base + "-" + std::to_string(++s);
+  ++s;
+  return id;
+}
+
 void add_pair_demands(Network& net, const std::vector<PairAmount>& pairs, double weight, bool replace) {
   if (replace) net.demands.clear();
   std::unordered_set<std::string> taken;
   for (const Demand& k : net.demands) taken.insert(k.id);
+  PairIds ids(std::move(taken));
   net.demands.reserve(net.demands.size() + pairs.size());
   for (const PairAmount& p : pairs) {
     Demand k;
-    std::string base = net.nodes[p.origin].id + "-" + net.nodes[p.destination].id;
-    // Ids near the length limit would make one past it (size_limits.h): a short one instead.
-    if (base.size() + 12 > SizeLimits::kMaxStringLength) base = "d" + std::to_string(net.demands.size() + 1);
-    k.id = base;
-    for (int s = 2; !taken.insert(k.id).second; ++s) k.id = base + "-" + std::to_string(s);
+    k.id = ids.next(net, p.origin, p.destination, net.demands.size() + 1);
     k.origin = p.origin, k.destination = p.destination, k.weight = weight, k.amount = p.amount;
     net.demands.push_back(std::move(k));
   }

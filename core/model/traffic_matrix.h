@@ -18,6 +18,8 @@
 #include <cstdint>
 #include <optional>
 #include <string>
+#include <unordered_map>
+#include <unordered_set>
 #include <vector>
 
 #include "apportion/model/diagnostics.h"
@@ -57,6 +59,20 @@ struct PairAmount {
 // Adds one demand per pair, ids as above, each with `weight`; after the existing demands or
 // in their place. The caller has checked the pairs (distinct nodes of `net`) and the limit.
 void add_pair_demands(Network& net, const std::vector<PairAmount>& pairs, double weight, bool replace);
+
+// The ids of new demands: "<origin id>-<destination id>", a number appended where taken
+// (linear in the count even when many demands share a pair); an id that would pass the
+// length limit (size_limits.h) becomes "d<fallback>" instead. Shared by the matrices and the
+// demands tables.
+class PairIds {
+ public:
+  explicit PairIds(std::unordered_set<std::string> taken) : taken_(std::move(taken)) {}
+  std::string next(const Network& net, int origin, int destination, std::size_t fallback);
+
+ private:
+  std::unordered_set<std::string> taken_;
+  std::unordered_map<std::string, int> next_suffix_;
+};
 
 // The masses a seed draws, one per node (exposed for tests and the app's preview).
 std::vector<double> seeded_masses(int nodes, std::uint64_t seed);

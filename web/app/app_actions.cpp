@@ -9,8 +9,9 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
-#include "app/app_state.h"
 #include <imgui.h>
+
+#include "app/app_state.h"
 #include "apportion/formats/demand_table.h"
 #include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_json.h"
@@ -367,6 +368,16 @@ bool add_matrix_demands() {
   return true;
 }
 
+namespace {
+// Opens the "Add demands" dialog on a demands table (pasted: no name), read afresh.
+void show_table(const std::string& text, const std::string& name) {
+  MatrixChoices& m = app().matrix;
+  m.source = 1;
+  m.table_text = text, m.table_name = name, m.table_read_at = -1;
+  app().matrix_dialog_requested = true;
+}
+}  // namespace
+
 const DemandTableRead& pasted_table() {
   App& a = app();
   MatrixChoices& m = a.matrix;
@@ -438,18 +449,14 @@ void receive_paste(const std::string& text) {
     report("paste-refused");
     return;
   }
-  a.matrix.source = 1;
-  a.matrix.table_text = text, a.matrix.table_name.clear(), a.matrix.table_read_at = -1;
-  a.matrix_dialog_requested = true;
+  show_table(text, "");
   report("table-pasted");
 }
 
 void add_single_csv(const std::string& name, const std::string& text) {
   App& a = app();
   if (looks_like_demand_table(text)) {  // a demands table: shown in the dialog to check, then added
-    a.matrix.source = 1;
-    a.matrix.table_text = text, a.matrix.table_name = name, a.matrix.table_read_at = -1;
-    a.matrix_dialog_requested = true;
+    show_table(text, name);
     report("table-opened");
     return;
   }
