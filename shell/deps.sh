@@ -13,6 +13,7 @@ packages=(
   emscripten                           # WebAssembly toolchain (3.1.6, clang 14)
   clang-14 libclang-rt-14-dev          # libFuzzer with the sanitizers (shell/fuzz.sh)
   python3-networkx python3-scipy glpk-utils liblemon-dev  # outside references for tests and benchmark
+  fonts-dejavu-core python3-fonttools  # the page's text font, cut down at build time
 )
 if [ "${APPORTION_WITH_BROWSER:-0}" = 1 ]; then packages+=(chromium); fi
 

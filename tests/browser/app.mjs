@@ -11,6 +11,7 @@ import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
 import os from 'node:os';
+import zlib from 'node:zlib';
 import { chromium } from 'playwright-core';
 import { grid, hostile } from './networks.mjs';
 
@@ -120,6 +121,46 @@ const frameStats = (page, ms) => page.evaluate((ms) => new Promise((done) => {
   } };
   requestAnimationFrame(tick);
 }), ms);
+
+// Reads an 8-bit RGB or RGBA PNG (W3C PNG specification, 2nd edition: chunks, zlib data,
+// per-line filters 0-4), enough for screenshots and the page's own PNG export.
+function readPng(buffer) {
+  let pos = 8, width = 0, height = 0, channels = 0;
+  const data = [];
+  while (pos < buffer.length) {
+    const len = buffer.readUInt32BE(pos), type = buffer.toString('latin1', pos + 4, pos + 8);
+    const body = buffer.subarray(pos + 8, pos + 8 + len);
+    if (type === 'IHDR') {
+      width = body.readUInt32BE(0); height = body.readUInt32BE(4);
+      if (body[8] !== 8 || (body[9] !== 2 && body[9] !== 6) || body[12] !== 0) throw new Error('unsupported PNG');
+      channels = body[9] === 6 ? 4 : 3;
+    } else if (type === 'IDAT') data.push(body);
+    pos += 12 + len;
+  }
+  const raw = zlib.inflateSync(Buffer.concat(data)), stride = width * channels;
+  const px = Buffer.alloc(height * stride);
+  for (let y = 0; y < height; y++) {
+    const f = raw[y * (stride + 1)], line = raw.subarray(y * (stride + 1) + 1, (y + 1) * (stride + 1));
+    for (let x = 0; x < stride; x++) {
+      const a = x >= channels ? px[y * stride + x - channels] : 0, b = y > 0 ? px[(y - 1) * stride + x] : 0;
+      const c = x >= channels && y > 0 ? px[(y - 1) * stride + x - channels] : 0;
+      const pa = Math.abs(b - c), pb = Math.abs(a - c), pc = Math.abs(a + b - 2 * c);
+      const pred = [0, a, b, (a + b) >> 1, pa <= pb && pa <= pc ? a : pb <= pc ? b : c][f];
+      px[y * stride + x] = (line[x] + pred) & 255;
+    }
+  }
+  // Mean luma (ITU-R BT.709) of a box, 0..1.
+  const luma = (x0, y0, x1, y1) => {
+    let sum = 0, n = 0;
+    for (let y = Math.max(0, y0 | 0); y < Math.min(height, y1 | 0); y++)
+      for (let x = Math.max(0, x0 | 0); x < Math.min(width, x1 | 0); x++) {
+        const i = y * stride + x * channels;
+        sum += (0.2126 * px[i] + 0.7152 * px[i + 1] + 0.0722 * px[i + 2]) / 255; n++;
+      }
+    return n ? sum / n : NaN;
+  };
+  return { width, height, luma };
+}
 
 const harrowmere = expected('harrowmere-fibre').demands.map((d) => d.share);
 const lowmoor = expected('lowmoor-relief-roads');
@@ -802,6 +843,160 @@ try {
     check('5,000-arc network: the page animates it', fr.fps > 0, JSON.stringify(fr));
     await b.page.screenshot({ path: path.join(artefacts, 'five-thousand-arcs.png') });
     await b.close();
+  }
+
+  // 16. Readable at a meeting: the toolbar at 1,024 px, labels before fields, the light theme
+  // and the text size (remembered), a resizable side panel, the view refitting, charts with
+  // axes, the canvas PNG alone, the SVG for a report; screenshots at DPR 1 and 2, light and dark.
+  {
+    const b = await browser(1);
+    await b.page.setViewportSize({ width: 1024, height: 768 });
+    const solved = b.next('solved');
+    await b.page.goto(`${base}/apportion.html`);
+    await solved;
+    await b.page.waitForTimeout(300);
+    let st = await b.state();
+    const bar = new Map(st.toolbar.map(([name, x0, y0, x1, y1]) => [name, { x0, y0, x1, y1 }]));
+    const right = Math.max(...st.toolbar.map((t) => t[3]));
+    const rows = new Set(st.toolbar.map((t) => Math.round(t[2]))).size;
+    check('1,024 px: every toolbar item is inside the window (the toolbar wraps)', right <= st.window[0] && rows >= 2,
+          `right edge ${right} of ${st.window[0]}, ${rows} rows`);
+    const label = bar.get('label:rule'), rule = bar.get('rule');
+    check('toolbar: the label "Rule" comes before its field, on its row', label && rule && label.x1 <= rule.x0 &&
+          Math.abs((label.y0 + label.y1) / 2 - (rule.y0 + rule.y1) / 2) < 4, JSON.stringify([label, rule]));
+    const hops = bar.get('label:hops'), hopsField = bar.get('hops');
+    check('toolbar: "Hop limit" before its field', hops && hopsField && hops.x1 <= hopsField.x0);
+    check('DPR 1: the font is rasterised at 15 px (DejaVu Sans, 100 %)', st.font_px === 15, String(st.font_px));
+    check('dark theme by default', st.theme === 'dark');
+    await b.page.screenshot({ path: path.join(artefacts, 'display-dark-dpr1.png') });
+    const darkShot = readPng(await b.page.screenshot());
+    let pos = await b.positions();
+    const [cx, cy, cw, ch] = pos.canvas;
+    const darkLuma = darkShot.luma(cx + cw - 60, cy + 10, cx + cw - 10, cy + 60);
+
+    // Light theme and 130 % text: applied at once, and remembered after a reload.
+    await b.act('theme light');
+    await b.act('text-size 130');
+    await b.page.waitForTimeout(300);
+    st = await b.state();
+    check('light theme and 130 % text applied', st.theme === 'light' && st.text_size === 130 &&
+          st.font_px === Math.round(15 * 1.3), JSON.stringify([st.theme, st.text_size, st.font_px]));
+    pos = await b.positions();
+    const lightShot = readPng(await b.page.screenshot());
+    const [lx, ly, lw, lh] = pos.canvas;
+    const lightLuma = lightShot.luma(lx + lw - 60, ly + 10, lx + lw - 10, ly + 60);
+    check('light theme: the canvas background is light, the dark one dark (screenshot pixels)',
+          lightLuma > 0.9 && darkLuma < 0.2, `light ${lightLuma.toFixed(3)}, dark ${darkLuma.toFixed(3)}`);
+    await b.page.screenshot({ path: path.join(artefacts, 'display-light-130-dpr1.png') });
+    const wrappedRows = new Set(st.toolbar.map((t) => Math.round(t[2]))).size;
+    check('130 % at 1,024 px: still no toolbar item outside the window',
+          Math.max(...st.toolbar.map((t) => t[3])) <= st.window[0], `${wrappedRows} rows`);
+
+    // The side panel's edge drags; the canvas refits into the room it leaves.
+    const [sx0, sy0, sx1, sy1] = st.splitter;
+    const before = st.side_width;
+    await b.page.mouse.move((sx0 + sx1) / 2, (sy0 + sy1) / 2);
+    await b.page.mouse.down();
+    await b.page.mouse.move((sx0 + sx1) / 2 - 80, (sy0 + sy1) / 2, { steps: 8 });
+    await b.page.mouse.up();
+    await b.page.waitForTimeout(200);
+    st = await b.state();
+    check('dragging the side panel\'s edge makes it narrower', Math.abs(st.side_width - (before - 80)) < 6,
+          `${before} -> ${st.side_width}`);
+    const inside = (p) => {
+      const [x, y, w, h] = p.canvas;
+      return Object.values(p.nodes).every(([nx, ny]) => nx >= x && nx <= x + w && ny >= y && ny <= y + h);
+    };
+    await b.page.setViewportSize({ width: 1366, height: 800 });
+    await b.page.waitForTimeout(400);
+    pos = await b.positions();
+    const xs = Object.values(pos.nodes).map((n) => n[0]);
+    check('the view refits on a window resize: every node inside the canvas, spread over it',
+          inside(pos) && Math.max(...xs) - Math.min(...xs) > 0.4 * pos.canvas[2], JSON.stringify(pos.canvas));
+
+    // Charts: axes with tick labels up to the largest share and to 100 %.
+    await b.act('tab 3');
+    await b.page.waitForTimeout(300);
+    st = await b.state();
+    check('charts: both have a y axis with tick labels (utilisation up to "100 %")',
+          st.chart_ticks.length === 2 && st.chart_ticks[1] === '100 %' && Number(st.chart_ticks[0]) > 0,
+          JSON.stringify(st.chart_ticks));
+    await b.page.screenshot({ path: path.join(artefacts, 'display-charts-light.png') });
+
+    // The PNG is the canvas alone: its size is the canvas's, not the page's.
+    pos = await b.positions();
+    const pngDl = b.page.waitForEvent('download');
+    await b.act('export-png');
+    const png = await pngDl;
+    const pngFile = path.join(tmp, 'canvas.png');
+    await png.saveAs(pngFile);
+    const shot = readPng(fs.readFileSync(pngFile));
+    check('PNG export: the canvas alone, at its size on screen', png.suggestedFilename() === 'Harrowmere-Province-regional-fibre-backbone.canvas.png' &&
+          Math.abs(shot.width - pos.canvas[2]) <= 2 && Math.abs(shot.height - pos.canvas[3]) <= 2,
+          `${png.suggestedFilename()} ${shot.width}x${shot.height} against ${pos.canvas[2]}x${pos.canvas[3]}`);
+    check('PNG export: drawn in the light theme as on screen', shot.luma(shot.width - 50, 5, shot.width - 5, 50) > 0.9);
+
+    // The SVG for a report: light, with the rule, the totals, the date, arrows and the caution.
+    const svgDl = b.page.waitForEvent('download');
+    await b.act('export-svg');
+    const svgFile = path.join(tmp, 'picture.svg');
+    await (await svgDl).saveAs(svgFile);
+    const svg = fs.readFileSync(svgFile, 'utf8');
+    check('SVG export: light, titled, with rule, totals, date, arrows, legend and caution',
+          svg.includes('fill="#ffffff"') && svg.includes('Rule: Max-min fair shares (weighted)') &&
+          /throughput [0-9.]+/.test(svg) && /made 20[0-9]{2}-[0-9]{2}-[0-9]{2} [0-9]{2}:[0-9]{2}/.test(svg) &&
+          svg.includes('<polygon') && svg.includes('arc utilisation') && svg.includes('planning aid'));
+
+    // Each rule explains a 0, and names arcs as the canvas does; feasibility draws its cut.
+    const ids = expected('harrowmere-fibre').demands.map((d) => d.id);
+    const iNorth = ids.indexOf('d-north'), iEast = ids.indexOf('d-east');
+    check('"Bound by" names arcs by their ends (labels), not by ids', st.bound_by[iEast].includes('\u2192') &&
+          !/l[0-9]+-ab/.test(st.bound_by[iEast]), JSON.stringify(st.bound_by[iEast]));
+    let ruled = b.next('solved');
+    await b.act('objective 1');
+    ruled = await ruled;
+    check('max concurrent flow: the demand without an amount gets 0, and the table says why',
+          ruled && ruled.shares[iNorth] === 0 && ruled.bound_by[iNorth].startsWith('0: it asks for as much as possible'),
+          JSON.stringify(ruled && ruled.bound_by[iNorth]));
+    ruled = b.next('solved');
+    await b.act('objective 4');
+    ruled = await ruled;
+    await b.page.waitForTimeout(300);
+    pos = await b.positions();
+    // By hand from the demo (and the command line's "overloaded cut"): the origin side
+    // {HRW, CAL, DUN, ELS, FEN, IVB, LAN} leaves by IVB->KES, DUN->KES and FEN->GRY.
+    check('feasibility: the overloaded cut is drawn (its 3 arcs outlined)', pos.cut_arcs === 3, String(pos.cut_arcs));
+    await b.page.screenshot({ path: path.join(artefacts, 'feasibility-cut-light.png') });
+    ruled = b.next('solved');
+    await b.act('objective 0');
+    await ruled;
+
+    // Remembered: a reload keeps the theme, the text size and the panel's width.
+    const width = st.side_width;
+    const again = b.next('first-frame');
+    await b.page.reload();
+    await again;
+    await b.page.waitForTimeout(300);
+    st = await b.state();
+    check('a reload keeps the theme, the text size and the side panel\'s width',
+          st.theme === 'light' && st.text_size === 130 && Math.abs(st.side_width - width) < 1,
+          JSON.stringify([st.theme, st.text_size, st.side_width]));
+    check('display: a clean console', b.problems.length === 0, JSON.stringify(b.problems));
+    await b.close();
+
+    // DPR 2, dark and light: the font at twice the pixels, for the reviewer's screenshots.
+    const b2 = await browser(2);
+    const solved2 = b2.next('solved');
+    await b2.page.goto(`${base}/apportion.html`);
+    await solved2;
+    await b2.page.waitForTimeout(300);
+    st = await b2.state();
+    check('DPR 2: the font is rasterised at 30 px', st.font_px === 30, String(st.font_px));
+    await b2.page.screenshot({ path: path.join(artefacts, 'display-dark-dpr2.png') });
+    await b2.act('theme light');
+    await b2.page.waitForTimeout(300);
+    await b2.page.screenshot({ path: path.join(artefacts, 'display-light-dpr2.png') });
+    await b2.close();
   }
 
   // 15. The single file from file://.

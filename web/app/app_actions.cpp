@@ -12,6 +12,7 @@
 #include <imgui.h>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "apportion/formats/demand_table.h"
 #include "apportion/formats/matrix_csv.h"
 #include "apportion/formats/network_json.h"
@@ -57,6 +58,10 @@ std::string state_json(const char* event) {
   if (result_is_current())
     for (const auto& d : a.result.demands) shares.push_back(d.share);
   s["shares"] = shares;
+  nlohmann::json bound = nlohmann::json::array();
+  if (result_is_current())
+    for (int k = 0; k < static_cast<int>(a.result.demands.size()) && k < 2000; ++k) bound.push_back(share_bound_text(k));
+  s["bound_by"] = bound;
   s["dpr"] = a.dpr;
   nlohmann::json errors = nlohmann::json::array();
   for (const Diagnostic& d : a.diagnostics.items)
@@ -68,6 +73,17 @@ std::string state_json(const char* event) {
   for (int e : a.selection.arcs) sel["arcs"].push_back(a.doc.arcs[e].id);
   for (int k : a.selection.demands) sel["demands"].push_back(a.doc.demands[k].id);
   s["selection"] = sel;
+  s["theme"] = appearance().light ? "light" : "dark";
+  s["text_size"] = appearance().scale_percent;
+  s["side_width"] = a.side_width;
+  s["chart_ticks"] = a.chart_ticks;
+  s["splitter"] = a.splitter;
+  s["font_px"] = ImGui::GetIO().Fonts->Fonts.empty() ? 0.0f : ImGui::GetIO().Fonts->Fonts[0]->FontSize;
+  s["labels_drawn"] = a.view.drawn_labels;
+  s["window"] = {ImGui::GetIO().DisplaySize.x, ImGui::GetIO().DisplaySize.y};
+  nlohmann::json bar = nlohmann::json::array();
+  for (const auto& [name, r] : a.toolbar_items) bar.push_back({name, r[0], r[1], r[2], r[3]});
+  s["toolbar"] = bar;
   return s.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
 }
 
@@ -101,6 +117,12 @@ void clamp_selection() {
 }
 
 }  // namespace
+
+void load_side_width() {
+  const double w = std::atof(read_setting("side-width").c_str());
+  if (w >= 200 && w <= 4000) app().side_width = static_cast<float>(w);
+}
+void remember_side_width() { write_setting("side-width", std::to_string(static_cast<int>(app().side_width))); }
 
 void report(const char* event) { std::printf("apportion:%s %s\n", event, state_json(event).c_str()); }
 
@@ -588,8 +610,18 @@ void action(const std::string& what) {
     download_text(file_stem() + ".arcs.csv", "text/csv", multiflow_arcs_csv(a.doc, *r));
   else if (what == "export-paths-csv" && r)
     download_text(file_stem() + ".paths.csv", "text/csv", multiflow_paths_csv(a.doc, *r));
-  else if (what == "export-svg") download_text(file_stem() + ".picture.svg", "image/svg+xml", network_svg(a.doc, r));
-  else if (what == "export-png") a.png_requested = true;
+  else if (what == "export-svg") {
+    PictureOptions o;  // the light theme, for a report
+    o.rule = r ? kObjectiveLabels[a.objective] : "";
+    o.date = local_time_text();
+    download_text(file_stem() + ".picture.svg", "image/svg+xml", network_svg(a.doc, r, o));
+  } else if (what == "export-png") a.png_requested = 2;
+  else if (what.rfind("theme ", 0) == 0) set_theme(what.substr(6) == "light");
+  else if (what.rfind("text-size ", 0) == 0) set_scale_percent(std::atoi(what.c_str() + 10));
+  else if (what.rfind("side-width ", 0) == 0) {
+    a.side_width = static_cast<float>(std::atof(what.c_str() + 11));
+    remember_side_width();
+  }
   else if (what == "export-matrix-csv")
     download_text(file_stem() + ".matrix.csv", "text/csv", write_matrix_csv(a.doc).text);
   else if (what == "export-result-json" && r)

@@ -6,6 +6,7 @@
 
 #include <GLFW/glfw3.h>
 
+#include <array>
 #include <string>
 #include <unordered_map>
 #include <vector>
@@ -117,8 +118,13 @@ struct App {
   char search[128] = "";
   std::vector<char> search_hits;         // per node
   int right_tab = 0;
-  bool png_requested = false;
+  int png_requested = 0;        // frames until the canvas PNG is taken (0: none asked for)
   float dpr = 1.0f;
+  float applied_scale = 0;      // the UI scale the fonts and style were made for
+  float side_width = 560;       // of the side panel, in CSS pixels (dragged, remembered)
+  std::array<float, 4> splitter{};  // the side panel's draggable edge, x0 y0 x1 y1 (test hook)
+  // Where the toolbar's items were drawn last frame (for the test hook): name, then x0 y0 x1 y1.
+  std::vector<std::pair<std::string, std::array<float, 4>>> toolbar_items;
   bool first_frame_reported = false;
   MatrixChoices matrix;
   bool matrix_dialog_requested = false;  // opened by the test hook, as by its button
@@ -127,6 +133,7 @@ struct App {
   long long result_changes = 0;  // bumps on every result received
   TableView demand_view, share_view;
   int chart_bars = 0;  // bars the shares chart drew last (fewer than demands: summarised)
+  std::vector<std::string> chart_ticks;  // the top tick label of each chart drawn last frame
 };
 
 App& app();
@@ -134,6 +141,16 @@ App& app();
 inline constexpr FairObjective kObjectives[] = {FairObjective::kMaxMinFair, FairObjective::kMaxConcurrent,
                                                 FairObjective::kMaxThroughput, FairObjective::kTradeoff,
                                                 FairObjective::kFeasibility};
+// What each rule optimises, in a sentence (the rule's tooltip and the shares panel).
+inline constexpr const char* kObjectiveExplanations[] = {
+    "Raises every demand's share together, in proportion to its weight, until an arc or its own amount stops it, "
+    "then raises the rest the same way: no demand can get more without taking from one that has no more.",
+    "The largest fraction lambda of every amount that all demands get at once. A demand asking for as much as "
+    "possible has no amount to take a fraction of: it gets 0.",
+    "The most flow in total, whoever carries it: demands on long or crowded routes may get 0.",
+    "The most flow in total while every demand keeps at least (1 - fairness given up) of its max-min fair share.",
+    "Whether every amount can be carried at once; if not, the largest fraction of every amount at once and the "
+    "smallest total shortfall. A demand asking for as much as possible gets 0 here."};
 inline constexpr const char* kObjectiveLabels[] = {"Max-min fair shares (weighted)", "Max concurrent flow",
                                                    "Max throughput", "Throughput with a fairness floor",
                                                    "Can every demand be met?"};
@@ -170,6 +187,9 @@ bool add_matrix_demands();
 // demands are added to the open network as one undoable
 // edit (weight 1), or its errors shown with the document unchanged.
 void add_single_csv(const std::string& name, const std::string& text);
+// The side panel's width: read from and kept in this browser's storage.
+void load_side_width();
+void remember_side_width();
 // The name every download starts with (the network's name, made safe for a file name).
 std::string file_stem();
 // The table in app().matrix, read against the document as it is now (cached).

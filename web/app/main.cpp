@@ -25,6 +25,7 @@
 #include <string>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "apportion/formats/network_json.h"
 #include "apportion/results/flow_result_export.h"
 #include "browser/browser_bridge.h"
@@ -34,18 +35,6 @@
 
 namespace apportion::web {
 namespace {
-
-void apply_scale(float dpr) {
-  ImGuiIO& io = ImGui::GetIO();
-  io.Fonts->Clear();
-  ImFontConfig cfg;
-  cfg.SizePixels = std::round(13.0f * dpr);
-  io.Fonts->AddFontDefault(&cfg);
-  io.Fonts->Build();
-  io.FontGlobalScale = 1.0f / dpr;
-  ImGui_ImplOpenGL3_DestroyFontsTexture();
-  ImGui_ImplOpenGL3_CreateFontsTexture();
-}
 
 // What the mouse did on the canvas, turned into selection changes and edits.
 void apply_canvas_input(const CanvasInput& in) {
@@ -143,6 +132,8 @@ void report_positions() {
                       {"canvas", {a.view.canvas_x, a.view.canvas_y, a.view.canvas_w, a.view.canvas_h}},
                       {"canvas_ms", a.view.frame_ms},
                       {"out_of_service", out_of_service},
+                      {"cut_arcs", a.view.drawn_cut_arcs},
+                      {"labels", a.view.drawn_labels},
                       {"origin", a.view.drawn_origin >= 0 && a.view.drawn_origin < a.doc.node_count()
                                      ? a.doc.nodes[a.view.drawn_origin].id : ""},
                       {"destination", a.view.drawn_destination >= 0 && a.view.drawn_destination < a.doc.node_count()
@@ -158,7 +149,12 @@ void frame() {
   const float dpr = static_cast<float>(emscripten_get_device_pixel_ratio());
   const int w = std::max(1, static_cast<int>(css_w * dpr)), h = std::max(1, static_cast<int>(css_h * dpr));
   emscripten_set_canvas_element_size("#canvas", w, h);
-  if (dpr != a.dpr) a.dpr = dpr, apply_scale(dpr), a.view.fitted = false;
+  const bool restyle = appearance_changed();
+  if (dpr != a.dpr || restyle) {
+    if (dpr != a.dpr || a.applied_scale != ui_scale()) a.view.fitted = false;  // labels and margins change size
+    a.dpr = dpr, a.applied_scale = ui_scale();
+    apply_appearance(dpr);
+  }
 
   glfwPollEvents();
   ImGui_ImplOpenGL3_NewFrame();
@@ -176,12 +172,15 @@ void frame() {
   draw_toolbar();
   ImGui::Text("%s  (%s; %d nodes, %d arcs, %d demands)", a.doc.name.c_str(), a.doc_name.c_str(), a.doc.node_count(),
               a.doc.arc_count(), static_cast<int>(a.doc.demands.size()));
-  ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(0.95f, 0.80f, 0.45f, 1.0f));
+  ImGui::PushStyleColor(ImGuiCol_Text, palette().caution_text);
   ImGui::TextWrapped("%s", apportion::kPlanningCaution);
   ImGui::PopStyleColor();
   ImGui::Separator();
   // Messages go in the side panel, so that the canvas never moves under the mouse.
-  ImGui::BeginChild("side", ImVec2(560.0f, 0), true);
+  // The side panel, as wide as the user dragged its edge (remembered), leaving the canvas room.
+  const float side_max = std::max(260.0f, io.DisplaySize.x - 240.0f);
+  a.side_width = std::clamp(a.side_width, 260.0f, side_max);
+  ImGui::BeginChild("side", ImVec2(a.side_width, 0), true);
   draw_notices();
   if (ImGui::BeginTabBar("side-tabs")) {
     const int want = a.right_tab;
@@ -196,22 +195,39 @@ void frame() {
     ImGui::EndTabBar();
   }
   ImGui::EndChild();
-  ImGui::SameLine();
+  // The splitter: drag to resize the side panel.
+  ImGui::SameLine(0, 0);
+  const float grip = 8.0f * ui_scale();
+  ImGui::InvisibleButton("side-splitter", ImVec2(grip, std::max(1.0f, ImGui::GetContentRegionAvail().y)));
+  if (ImGui::IsItemHovered() || ImGui::IsItemActive()) ImGui::SetMouseCursor(ImGuiMouseCursor_ResizeEW);
+  if (ImGui::IsItemActive()) a.side_width = std::clamp(a.side_width + io.MouseDelta.x, 260.0f, side_max);
+  if (ImGui::IsItemDeactivated()) remember_side_width();
+  a.splitter = {ImGui::GetItemRectMin().x, ImGui::GetItemRectMin().y, ImGui::GetItemRectMax().x, ImGui::GetItemRectMax().y};
+  {
+    const ImVec2 g0 = ImGui::GetItemRectMin(), g1 = ImGui::GetItemRectMax();
+    ImGui::GetWindowDrawList()->AddLine(ImVec2((g0.x + g1.x) / 2, g0.y), ImVec2((g0.x + g1.x) / 2, g1.y),
+                                        ImGui::GetColorU32(ImGui::IsItemActive() ? ImGuiCol_SeparatorActive
+                                                                                 : ImGuiCol_Separator),
+                                        2.0f);
+  }
+  ImGui::SameLine(0, 0);
   ImGui::BeginChild("canvas", ImVec2(0, 0), false, ImGuiWindowFlags_NoScrollbar | ImGuiWindowFlags_NoScrollWithMouse);
-  const CanvasInput in = draw_network(a.doc, current_result(), a.selection, a.search_hits, a.tool, a.view, 1.0f);
+  const CanvasInput in = draw_network(a.doc, current_result(), a.selection, a.search_hits, a.tool, a.view, ui_scale());
   ImGui::EndChild();
   ImGui::End();
   apply_canvas_input(in);
 
   ImGui::Render();
   glViewport(0, 0, w, h);
-  glClearColor(0.11f, 0.12f, 0.15f, 1.0f);
+  const ImVec4 clear = palette().clear;
+  glClearColor(clear.x, clear.y, clear.z, 1.0f);
   glClear(GL_COLOR_BUFFER_BIT);
   ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
-  if (a.png_requested) {  // read the canvas now, while this frame's pixels are in it
-    a.png_requested = false;
-    download_canvas_png(file_stem() + ".canvas.png");
-  }
+  // The canvas alone, read now, while this frame's pixels are in it; a frame after the request,
+  // so that the menu that asked for it is closed.
+  if (a.png_requested > 0 && --a.png_requested == 0)
+    download_canvas_png(file_stem() + ".canvas.png", a.view.canvas_x * dpr, a.view.canvas_y * dpr, a.view.canvas_w * dpr,
+                        a.view.canvas_h * dpr);
   if (!a.first_frame_reported) {
     a.first_frame_reported = true;
     report("first-frame");
@@ -326,7 +342,9 @@ int main() {
     return EM_TRUE;
   });
   ImGui_ImplOpenGL3_Init("#version 300 es");
-  app().dpr = 0;  // forces apply_scale on the first frame
+  app().dpr = 0;  // forces apply_appearance on the first frame
+  apportion::web::load_appearance();
+  apportion::web::load_side_width();
   if (demo.ok()) apportion::web::set_document(std::move(*demo.network), "demo network", /*save=*/false);
   apportion::web::load_startup_network();
   emscripten_set_main_loop(apportion::web::frame_entry, 0, false);

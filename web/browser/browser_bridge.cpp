@@ -15,7 +15,7 @@ namespace {
 // The JavaScript lives in web/browser/shell.html (window.apportionBridge); these are the calls.
 EM_JS(void, js_download, (const char* name, const char* mime, const char* text),
       { apportionBridge.download(UTF8ToString(name), UTF8ToString(mime), UTF8ToString(text)); });
-EM_JS(void, js_png, (const char* name), { apportionBridge.png(UTF8ToString(name)); });
+EM_JS(void, js_png, (const char* name, int x, int y, int w, int h), { apportionBridge.png(UTF8ToString(name), x, y, w, h); });
 EM_JS(void, js_open_picker, (), { apportionBridge.openPicker(); });
 EM_JS(void, js_share, (const char* json), { apportionBridge.share(UTF8ToString(json)); });
 EM_JS(void, js_autosave, (const char* json), { apportionBridge.autosave(UTF8ToString(json)); });
@@ -29,6 +29,27 @@ EM_JS(char*, js_autosave_list, (), {
   return p;
 });
 EM_JS(void, js_restore_autosave, (int slot), { apportionBridge.restoreAutosave(slot); });
+EM_JS(char*, js_read_setting, (const char* key), {
+  var s = '';
+  try { s = localStorage.getItem('apportion.' + UTF8ToString(key)) || ''; } catch (e) {}
+  var len = lengthBytesUTF8(s) + 1;
+  var p = _malloc(len);
+  stringToUTF8(s, p, len);
+  return p;
+});
+EM_JS(void, js_write_setting, (const char* key, const char* value), {
+  try { localStorage.setItem('apportion.' + UTF8ToString(key), UTF8ToString(value)); } catch (e) {}
+});
+EM_JS(char*, js_local_time, (), {
+  var d = new Date();
+  var two = function (n) { return (n < 10 ? '0' : '') + n; };
+  var s = d.getFullYear() + '-' + two(d.getMonth() + 1) + '-' + two(d.getDate()) + ' ' + two(d.getHours()) + ':' +
+          two(d.getMinutes());
+  var len = lengthBytesUTF8(s) + 1;
+  var p = _malloc(len);
+  stringToUTF8(s, p, len);
+  return p;
+});
 EM_JS(void, js_stop_solver, (), { apportionBridge.stopSolver(); });
 
 }  // namespace
@@ -37,7 +58,9 @@ void download_text(const std::string& filename, const std::string& mime, const s
   js_download(filename.c_str(), mime.c_str(), text.c_str());
 }
 void open_file_picker() { js_open_picker(); }
-void download_canvas_png(const std::string& filename) { js_png(filename.c_str()); }
+void download_canvas_png(const std::string& filename, float x, float y, float width, float height) {
+  js_png(filename.c_str(), static_cast<int>(x), static_cast<int>(y), static_cast<int>(width), static_cast<int>(height));
+}
 void publish_share_link(const std::string& network_json) { js_share(network_json.c_str()); }
 void autosave(const std::string& network_json) { js_autosave(network_json.c_str()); }
 void load_startup_network() { js_startup(); }
@@ -50,5 +73,18 @@ std::string autosave_versions() {
   return s;
 }
 void restore_autosave(int slot) { js_restore_autosave(slot); }
+std::string read_setting(const std::string& key) {
+  char* p = js_read_setting(key.c_str());
+  std::string s = p ? p : "";
+  std::free(p);
+  return s;
+}
+std::string local_time_text() {
+  char* p = js_local_time();
+  std::string s = p ? p : "";
+  std::free(p);
+  return s;
+}
+void write_setting(const std::string& key, const std::string& value) { js_write_setting(key.c_str(), value.c_str()); }
 
 }  // namespace apportion::web

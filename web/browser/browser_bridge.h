@@ -10,8 +10,9 @@ namespace apportion::web {
 
 // Offers `text` as a file download (a Blob and an <a download> link; works from file://).
 void download_text(const std::string& filename, const std::string& mime, const std::string& text);
-// Offers the canvas as a PNG download; call right after drawing a frame.
-void download_canvas_png(const std::string& filename);
+// Offers a part of the canvas (x, y, width, height in device pixels) as a PNG download;
+// call right after drawing a frame.
+void download_canvas_png(const std::string& filename, float x, float y, float width, float height);
 // Opens the browser's file picker; chosen files arrive through apportion_receive_files().
 void open_file_picker();
 // Compresses the network JSON (deflate-raw, base64url) into a link "PAGE#n=...", copies it
@@ -32,6 +33,12 @@ void restore_autosave(int slot);
 void start_solve(int id, const std::string& request_json);
 // Terminates the worker, stopping a solve at once; the next start_solve starts a new one.
 void stop_solver();
+// A page setting kept in this browser's local storage under "apportion.<key>" ("" when
+// none, or when storage is blocked; writing then does nothing).
+std::string read_setting(const std::string& key);
+void write_setting(const std::string& key, const std::string& value);
+// The local date and time, "YYYY-MM-DD HH:MM", for what an export says it was made.
+std::string local_time_text();
 // At start: a network from the URL fragment (which is then cleared from the address bar),
 // else from autosave; arrives like a file.
 void load_startup_network();

@@ -7,18 +7,11 @@
 #include <imgui.h>
 #include <string>
 
+#include "app/appearance.h"
+
 namespace apportion::web {
 
 namespace {
-
-// Okabe-Ito colours (M. Okabe, K. Ito, "Color Universal Design", 2008), readable with the
-// common colour-vision deficiencies, for what is picked out on top of the utilisation scale.
-constexpr ImU32 kFocus = IM_COL32(230, 159, 0, 255);      // orange: the filtered demand's or tier's flow
-constexpr ImU32 kBinding = IM_COL32(204, 121, 167, 255);  // reddish purple: binding arcs (apart from the orange flow)
-constexpr ImU32 kOutOfService = IM_COL32(190, 195, 205, 230);  // light grey: dashes and the cross
-constexpr ImU32 kSelected = IM_COL32(86, 180, 233, 255);  // sky blue: selection
-constexpr ImU32 kMatch = IM_COL32(240, 228, 66, 255);     // yellow: search matches
-constexpr ImU32 kInk = IM_COL32(230, 232, 236, 255);
 
 ImU32 to_imgui(const Rgb& c, float alpha = 1.0f) {
   return ImGui::ColorConvertFloat4ToU32(ImVec4(c.r, c.g, c.b, alpha));
@@ -38,14 +31,23 @@ float distance_to_segment(ImVec2 p, ImVec2 a, ImVec2 b) {
 CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const Selection& selection,
                          const std::vector<char>& highlight, Tool tool, ViewState& view, float ui_scale) {
   const auto started = std::chrono::steady_clock::now();
+  const Palette& colours = palette();
+  const ImU32 kFocus = colours.focus, kBinding = colours.binding, kOutOfService = colours.out_of_service;
+  const ImU32 kSelected = colours.selected, kMatch = colours.match, kInk = colours.ink;
   CanvasInput in;
   ImDrawList* dl = ImGui::GetWindowDrawList();
   const ImVec2 origin = ImGui::GetCursorScreenPos();
   const ImVec2 avail = ImGui::GetContentRegionAvail();
   view.canvas_x = origin.x, view.canvas_y = origin.y, view.canvas_w = avail.x, view.canvas_h = avail.y;
   if (avail.x < 10 || avail.y < 10) return in;
+  // A resized canvas (window, side panel) fits again, unless the user has zoomed or panned
+  // since the last fit: then the view stays where they put it, and Fit brings it back.
+  const bool untouched = view.zoom == 1 && view.pan_x == 0 && view.pan_y == 0;
+  if (view.fitted && untouched && (std::abs(avail.x - view.fitted_w) > 0.5f || std::abs(avail.y - view.fitted_h) > 0.5f))
+    view.fitted = false;
   if (!view.fitted) {
     view.layout = fit_layout(net, avail.x, avail.y, 40 * ui_scale, 120 * ui_scale);
+    view.fitted_w = avail.x, view.fitted_h = avail.y;
     view.pan_x = view.pan_y = 0;
     view.zoom = 1;
     view.fitted = true;
@@ -78,8 +80,10 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
                   origin.y + view.pan_y + static_cast<float>(y) * view.zoom);
   };
   auto to_doc = [&](ImVec2 p, double& x, double& y) {
-    x = ((p.x - origin.x - view.pan_x) / view.zoom - view.layout.margin) / view.layout.scale + view.layout.min_x;
-    y = ((p.y - origin.y - view.pan_y) / view.zoom - view.layout.margin) / view.layout.scale + view.layout.min_y;
+    x = ((p.x - origin.x - view.pan_x) / view.zoom - view.layout.margin - view.layout.offset_x) / view.layout.scale +
+        view.layout.min_x;
+    y = ((p.y - origin.y - view.pan_y) / view.zoom - view.layout.margin - view.layout.offset_y) / view.layout.scale +
+        view.layout.min_y;
   };
 
   dl->PushClipRect(origin, ImVec2(origin.x + avail.x, origin.y + avail.y), true);
@@ -123,9 +127,24 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   if (binding)
     for (int e : *binding)
       if (e >= 0 && e < net.arc_count()) arc_binding[e] = 1;
+  // Feasibility: the overloaded cut it found, when nothing is filtered: the arcs leaving its
+  // origin side outlined like binding arcs, and that side's nodes ringed.
+  std::vector<char> cut_side(net.nodes.size(), 0);
+  view.drawn_cut_arcs = 0;
+  if (flow && !filtering && flow->objective == FairObjective::kFeasibility && !flow->overloaded_cut_source_side.empty()) {
+    for (int v : flow->overloaded_cut_source_side)
+      if (v >= 0 && v < net.node_count()) cut_side[v] = 1;
+    for (int e = 0; e < net.arc_count(); ++e) {
+      const Arc& arc = net.arcs[e];
+      const bool out = cut_side[arc.from] && !cut_side[arc.to];
+      const bool back = arc.shared_two_way && cut_side[arc.to] && !cut_side[arc.from];
+      if (arc.enabled && (out || back)) arc_binding[e] = 1, ++view.drawn_cut_arcs;
+    }
+  }
   const float time = static_cast<float>(ImGui::GetTime());
   view.drawn_out_of_service.clear();
   view.drawn_origin = view.drawn_destination = -1;
+  view.drawn_labels = 0;
   int hover_arc = -1;
   float best = 8 * ui_scale;
   for (int a = 0; a < net.arc_count(); ++a) {
@@ -156,7 +175,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
       }
       const ImVec2 m((p.x + q.x) / 2, (p.y + q.y) / 2);
       const float c = 6 * ui_scale;
-      dl->AddCircleFilled(m, c + 3 * ui_scale, IM_COL32(29, 32, 38, 255));
+      dl->AddCircleFilled(m, c + 3 * ui_scale, colours.halo);
       dl->AddLine(ImVec2(m.x - c, m.y - c), ImVec2(m.x + c, m.y + c), kOutOfService, 2.5f * ui_scale);
       dl->AddLine(ImVec2(m.x - c, m.y + c), ImVec2(m.x + c, m.y - c), kOutOfService, 2.5f * ui_scale);
       view.drawn_out_of_service.push_back(a);
@@ -167,8 +186,8 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
       continue;
     }
     ImU32 colour;
-    if (filtering) colour = focus_flow != 0 ? kFocus : IM_COL32(140, 150, 165, 64);
-    else colour = load ? to_imgui(utilisation_colour(load->utilisation)) : IM_COL32(140, 150, 165, 255);
+    if (filtering) colour = focus_flow != 0 ? kFocus : colours.faded_arc;
+    else colour = load ? to_imgui(utilisation_colour(load->utilisation, colours.picture)) : colours.idle_arc;
     dl->AddLine(p, q, colour, width);
     if (!arc.shared_two_way && geo.length > 4 * node_r) {  // an arrowhead at two thirds of the way
       const float ux = (q.x - p.x) / geo.length, uy = (q.y - p.y) / geo.length;
@@ -185,7 +204,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
       for (float d = phase; d < geo.length; d += spacing) {
         const float t = focus_flow > 0 ? d / geo.length : 1.0f - d / geo.length;
         dl->AddCircleFilled(ImVec2(p.x + (q.x - p.x) * t, p.y + (q.y - p.y) * t), 2.2f * ui_scale,
-                            IM_COL32(255, 255, 255, 220), 8);
+                            colours.moving_mark, 8);
       }
     }
     if (hovered && hover_node < 0) {
@@ -214,6 +233,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     const bool match = v < static_cast<int>(highlight.size()) && highlight[v];
     if (match) dl->AddCircle(c, node_r + 6 * ui_scale, kMatch, 0, 2.5f * ui_scale);
     if (selected || v == view.pending_from) dl->AddCircleFilled(c, node_r + 3 * ui_scale, kSelected);
+    if (cut_side[v]) dl->AddCircle(c, node_r + 4 * ui_scale, kBinding, 0, 2.5f * ui_scale);
     dl->AddCircleFilled(c, node_r, kInk);
     if (focus_demand >= 0 && (v == net.demands[focus_demand].origin || v == net.demands[focus_demand].destination)) {
       // The filtered demand's ends: a ring in the flow's colour and a word below.
@@ -250,7 +270,13 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     if (!free && !must_show(v)) continue;
     for (int y = y0; y <= y1; ++y)
       for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = 1;
+    // A halo in the background's colour keeps a label readable where it crosses an arc.
+    const float o = std::max(1.0f, ui_scale);
+    for (const ImVec2 d : {ImVec2(-o, 0), ImVec2(o, 0), ImVec2(0, -o), ImVec2(0, o), ImVec2(-o, -o), ImVec2(o, o),
+                           ImVec2(-o, o), ImVec2(o, -o)})
+      dl->AddText(ImVec2(pos.x + d.x, pos.y + d.y), colours.halo, label.c_str());
     dl->AddText(pos, kInk, label.c_str());
+    ++view.drawn_labels;
   }
 
   // The mouse: a click, a move of the selected nodes, a selection box, or a new link.
@@ -290,7 +316,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   } else if (view.boxing || late_drag) {
     const ImVec2 a(std::min(view.press_x, mouse.x), std::min(view.press_y, mouse.y));
     const ImVec2 b(std::max(view.press_x, mouse.x), std::max(view.press_y, mouse.y));
-    dl->AddRectFilled(a, b, IM_COL32(86, 180, 233, 40));
+    dl->AddRectFilled(a, b, (kSelected & ~IM_COL32_A_MASK) | IM_COL32(0, 0, 0, 40));
     dl->AddRect(a, b, kSelected);
     if (released) {
       in.box_done = true;
@@ -330,37 +356,48 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   if ((tool == Tool::kAddArc || tool == Tool::kAddDemand) && view.pending_from >= 0 && view.pending_from < net.node_count())
     dl->AddLine(at(view.pending_from), mouse, tool == Tool::kAddArc ? kSelected : kFocus, 2 * ui_scale);
 
-  if (flow) {  // legend
-    const ImVec2 l0(origin.x + 12 * ui_scale, origin.y + avail.y - 24 * ui_scale);
-    const float w = 160 * ui_scale, h = 10 * ui_scale;
+  if (flow) {  // legend: short lines that fit a narrow canvas, each on the background's halo
+    const float line = ImGui::GetTextLineHeight(), w = 160 * ui_scale, h = 10 * ui_scale;
+    const float zero = ImGui::CalcTextSize("0 % ").x;
+    const ImVec2 l0(origin.x + 12 * ui_scale + zero, origin.y + avail.y - 12 * ui_scale - line);
+    auto text = [&](float x, float y, ImU32 colour, const char* t) {
+      const ImVec2 size = ImGui::CalcTextSize(t);
+      dl->AddRectFilled(ImVec2(x - 2, y - 1), ImVec2(x + size.x + 2, y + size.y + 1), colours.halo & 0xC0FFFFFF);
+      dl->AddText(ImVec2(x, y), colour, t);
+    };
     for (int i = 0; i < 32; ++i)
-      dl->AddRectFilled(ImVec2(l0.x + w * i / 32, l0.y), ImVec2(l0.x + w * (i + 1) / 32, l0.y + h),
-                        to_imgui(utilisation_colour(i / 31.0)));
-    dl->AddText(ImVec2(l0.x, l0.y - 16 * ui_scale), kInk,
-                filtering ? "orange: flow in the filter; purple outline: its binding arcs"
-                          : "arc utilisation 0 %  (width: capacity; dots move with the flow)");
+      dl->AddRectFilled(ImVec2(l0.x + w * i / 32, l0.y + (line - h) / 2), ImVec2(l0.x + w * (i + 1) / 32, l0.y + (line + h) / 2),
+                        to_imgui(utilisation_colour(i / 31.0, colours.picture)));
+    text(l0.x - zero, l0.y, kInk, "0 %");
+    text(l0.x + w + 6 * ui_scale, l0.y, kInk, "100 %");
+    text(l0.x - zero, l0.y - line - 2, kInk,
+         filtering                 ? "orange: flow in the filter; purple: its binding arcs"
+         : view.drawn_cut_arcs > 0 ? "arc utilisation; purple: the overloaded cut"
+                                   : "arc utilisation; width: capacity");
     if (!view.drawn_out_of_service.empty())
-      dl->AddText(ImVec2(l0.x, l0.y - 34 * ui_scale), kOutOfService, "dashed and crossed: out of service");
-    dl->AddText(ImVec2(l0.x + w + 6 * ui_scale, l0.y - 2 * ui_scale), kInk, "100 %");
+      text(l0.x - zero, l0.y - 2 * line - 4, kOutOfService, "dashed and crossed: out of service");
   }
   dl->PopClipRect();
 
   if (hover_node >= 0 && !view.moving && !view.boxing) {
     const Node& n = net.nodes[hover_node];
     ImGui::BeginTooltip();
-    ImGui::Text("node %s%s%s", n.id.c_str(), n.label.empty() ? "" : ": ", n.label.c_str());
+    if (n.label.empty()) ImGui::Text("node %s", n.id.c_str());
+    else ImGui::Text("%s  (node %s)", n.label.c_str(), n.id.c_str());
     ImGui::EndTooltip();
   } else if (hover_arc >= 0 && !view.moving && !view.boxing) {
     const Arc& arc = net.arcs[hover_arc];
     ImGui::BeginTooltip();
-    ImGui::Text("arc %s: %s -> %s%s", arc.id.c_str(), net.nodes[arc.from].id.c_str(), net.nodes[arc.to].id.c_str(),
-                arc.shared_two_way ? " (shared two-way)" : "");
+    auto name = [&](int v) { return net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label; };
+    ImGui::Text("%s %s %s  (arc %s%s)", name(arc.from).c_str(), arc.shared_two_way ? "\u2194" : "\u2192",
+                name(arc.to).c_str(), arc.id.c_str(), arc.shared_two_way ? ", shared two-way" : "");
     ImGui::Text("capacity %.6g %s%s", arc.capacity, net.units.capacity.c_str(), arc.enabled ? "" : " (disabled)");
     if (flow && hover_arc < static_cast<int>(flow->arcs.size())) {
       const ArcLoad& l = flow->arcs[hover_arc];
       ImGui::Text("load %.6g (%.1f %%), shadow price %.4g%s", l.load, 100 * l.utilisation, l.shadow_price,
                   l.tier ? (", binds in tier " + std::to_string(l.tier)).c_str() : "");
-      for (auto [k, f] : l.per_demand) ImGui::BulletText("%s: %.6g", net.demands[k].id.c_str(), f);
+      for (auto [k, f] : l.per_demand)
+        ImGui::BulletText("%s: %.6g", (net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label).c_str(), f);
     }
     ImGui::EndTooltip();
   }

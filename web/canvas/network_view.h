@@ -31,6 +31,7 @@ struct ViewState {
   float zoom = 1;
   Layout layout;               // document coordinates -> canvas, fixed until the next fit
   bool fitted = false;         // false: fit the network into the canvas on the next frame
+  float fitted_w = 0, fitted_h = 0;  // the canvas size of the last fit
   bool animate = true;
   int filter_demand = -1;      // >= 0: show this demand's flow and binding arcs
   int filter_tier = 0;         // > 0: show this tier's flows and binding arcs
@@ -47,6 +48,8 @@ struct ViewState {
   // the filtered demand's origin and destination.
   std::vector<int> drawn_out_of_service;
   int drawn_origin = -1, drawn_destination = -1;
+  int drawn_labels = 0;        // node labels drawn (the others would overlap)
+  int drawn_cut_arcs = 0;      // feasibility: arcs of the overloaded cut outlined
 };
 
 struct CanvasInput {

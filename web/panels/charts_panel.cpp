@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "apportion/results/network_svg.h"
 #include "panels/panels.h"
 
@@ -18,19 +19,36 @@ namespace apportion::web {
 
 namespace {
 
-// Two Okabe-Ito colours alternate between tiers, so neighbouring tiers always differ.
-constexpr ImU32 kTierColours[] = {IM_COL32(0, 114, 178, 255), IM_COL32(230, 159, 0, 255)};
-constexpr ImU32 kAxis = IM_COL32(200, 204, 212, 255);
-
-// A frame for a bar chart; returns the plot box.
-bool chart_frame(const char* id, float height, ImVec2& p0, ImVec2& p1) {
+// A bar chart's frame: a y axis with five ticks labelled from 0 to y_max, an x axis with its
+// name below, in the theme's colours. Returns the plot box inside the axes, and notes the
+// tick labels for the test hook.
+bool chart_frame(const char* id, float height, double y_max, const char* y_format, const char* x_label, ImVec2& p0,
+                 ImVec2& p1) {
+  const Palette& colours = palette();
   const float w = ImGui::GetContentRegionAvail().x;
-  if (w < 40) return false;
+  if (w < 80) return false;
+  char ticks[5][32];
+  float label_w = 0;
+  for (int i = 0; i < 5; ++i) {
+    std::snprintf(ticks[i], sizeof ticks[i], y_format, y_max * i / 4);
+    label_w = std::max(label_w, ImGui::CalcTextSize(ticks[i]).x);
+  }
+  const float line = ImGui::GetTextLineHeight(), pad = 4 * ui_scale();
   ImGui::InvisibleButton(id, ImVec2(w, height));
-  p0 = ImGui::GetItemRectMin();
-  p1 = ImGui::GetItemRectMax();
+  const ImVec2 b0 = ImGui::GetItemRectMin(), b1 = ImGui::GetItemRectMax();
+  p0 = ImVec2(b0.x + label_w + 2 * pad, b0.y + line / 2);
+  p1 = ImVec2(b1.x - pad, b1.y - line - 2 * pad);
   ImDrawList* dl = ImGui::GetWindowDrawList();
-  dl->AddRect(p0, p1, IM_COL32(90, 96, 110, 255));
+  dl->AddRect(p0, p1, colours.chart_frame);
+  for (int i = 0; i < 5; ++i) {
+    const float y = p1.y - (p1.y - p0.y) * i / 4;
+    dl->AddLine(ImVec2(p0.x - pad, y), ImVec2(p0.x, y), colours.chart_axis);
+    const ImVec2 size = ImGui::CalcTextSize(ticks[i]);
+    dl->AddText(ImVec2(p0.x - pad - 2 - size.x, y - size.y / 2), colours.chart_axis, ticks[i]);
+  }
+  const ImVec2 xs = ImGui::CalcTextSize(x_label);
+  dl->AddText(ImVec2((p0.x + p1.x - xs.x) / 2, p1.y + pad), colours.chart_axis, x_label);
+  app().chart_ticks.push_back(ticks[4]);
   return true;
 }
 
@@ -44,12 +62,16 @@ void draw_charts() {
     return;
   }
   const Network& net = a.doc;
-  const float s = 1.0f;  // layout in CSS pixels (see main.cpp)
+  const float s = ui_scale();  // layout in CSS pixels (see main.cpp), times the text size
+  const Palette& colours = palette();
+  a.chart_ticks.clear();
   ImDrawList* dl = ImGui::GetWindowDrawList();
   const ImVec2 mouse = ImGui::GetIO().MousePos;
 
   // 1. Normalised shares, sorted, coloured by tier.
-  ImGui::TextUnformatted("Normalised shares (share / weight), smallest first; colour changes with the tier");
+  const std::string unit = net.units.capacity.empty() ? "" : " (" + net.units.capacity + " per unit of weight)";
+  ImGui::TextWrapped("Normalised shares%s, smallest first; the colour changes with the tier, dashes mark the tiers' "
+                     "levels", unit.c_str());
   const int K = static_cast<int>(std::min(net.demands.size(), r->demands.size()));
   // The sort is kept until the next result: 40,000 demands take milliseconds to sort.
   static std::vector<int> order;
@@ -64,13 +86,14 @@ void draw_charts() {
   double top = 0;
   for (int k : order) top = std::max(top, r->demands[k].normalised);
   ImVec2 p0, p1;
-  if (K > 0 && top > 0 && chart_frame("shares-chart", 200 * s, p0, p1)) {
+  const std::string x_shares = std::to_string(K) + " demands, sorted by normalised share";
+  if (K > 0 && top > 0 && chart_frame("shares-chart", 220 * s, top, "%.4g", x_shares.c_str(), p0, p1)) {
     // More demands than pixels: one bar per pixel column, the largest share of the demands
     // it covers (the shares are sorted, so the staircase keeps its shape), and the hover
     // names the range. Fewer: one bar per demand.
     const int bars = std::max(1, std::min(K, static_cast<int>(p1.x - p0.x)));
     a.chart_bars = bars;
-    const float w = (p1.x - p0.x) / bars, h = p1.y - p0.y - 4 * s;
+    const float w = (p1.x - p0.x) / bars, h = p1.y - p0.y;
     int hovered = -1, hovered_first = -1;
     for (int b = 0; b < bars; ++b) {
       const int first = static_cast<int>(static_cast<long long>(b) * K / bars);
@@ -78,9 +101,9 @@ void draw_charts() {
       const DemandShare& d = r->demands[order[last]];
       const float bar = static_cast<float>(d.normalised / top) * h;
       const ImVec2 a0(p0.x + b * w + (w > 3 ? 1 : 0), p1.y - bar), a1(p0.x + (b + 1) * w, p1.y);
-      dl->AddRectFilled(a0, a1, kTierColours[std::max(0, d.tier) % 2]);
+      dl->AddRectFilled(a0, a1, colours.tier_colours[std::max(0, d.tier) % 2]);
       if (bars == K && order[b] == a.view.filter_demand)
-        dl->AddRect(ImVec2(a0.x - 1, a0.y - 1), a1, IM_COL32(255, 255, 255, 255), 0, 0, 2 * s);
+        dl->AddRect(ImVec2(a0.x - 1, a0.y - 1), a1, colours.focus, 0, 0, 2 * s);
       if (mouse.x >= a0.x - (w > 3 ? 1 : 0) && mouse.x < a1.x && mouse.y >= p0.y && mouse.y <= p1.y)
         hovered = order[last], hovered_first = order[first];
     }
@@ -92,11 +115,9 @@ void draw_charts() {
     for (const Tier& t : r->tiers) {  // tier levels as dashed guides
       const float y = p1.y - static_cast<float>(t.level / top) * h;
       if (t.level <= 0 || t.level > top) continue;
-      for (float x = p0.x; x < p1.x; x += 8 * s) dl->AddLine(ImVec2(x, y), ImVec2(std::min(x + 4 * s, p1.x), y), kAxis);
+      for (float x = p0.x; x < p1.x; x += 8 * s)
+        dl->AddLine(ImVec2(x, y), ImVec2(std::min(x + 4 * s, p1.x), y), colours.chart_axis);
     }
-    char label[64];
-    std::snprintf(label, sizeof label, "%.4g", top);
-    dl->AddText(ImVec2(p0.x + 4 * s, p0.y + 2 * s), kAxis, label);
     if (hovered >= 0 && ImGui::IsItemHovered()) {
       const DemandShare& d = r->demands[hovered];
       ImGui::SetTooltip("%s: share %.6g, normalised %.6g, tier %d", net.demands[hovered].id.c_str(), d.share, d.normalised,
@@ -107,23 +128,24 @@ void draw_charts() {
 
   // 2. Arc utilisation, sorted, fullest first.
   ImGui::Spacing();
-  ImGui::TextUnformatted("Arc utilisation, fullest first (line: 100 %)");
+  ImGui::TextWrapped("Arc utilisation (%% of capacity), fullest first; the line is 100 %%");
   const int M = static_cast<int>(std::min<std::size_t>(net.arcs.size(), r->arcs.size()));
   std::vector<int> arcs(M);
   std::iota(arcs.begin(), arcs.end(), 0);
   std::stable_sort(arcs.begin(), arcs.end(), [&](int i, int j) { return r->arcs[i].utilisation > r->arcs[j].utilisation; });
-  if (M > 0 && chart_frame("utilisation-chart", 160 * s, p0, p1)) {
-    const float w = (p1.x - p0.x) / M, h = p1.y - p0.y - 14 * s;
+  const std::string x_arcs = std::to_string(M) + " arcs, sorted by utilisation";
+  if (M > 0 && chart_frame("utilisation-chart", 180 * s, 100, "%.0f %%", x_arcs.c_str(), p0, p1)) {
+    const float w = (p1.x - p0.x) / M, h = p1.y - p0.y;
     int hovered = -1;
     for (int i = 0; i < M; ++i) {
       const ArcLoad& l = r->arcs[arcs[i]];
       const float bar = static_cast<float>(std::min(1.0, l.utilisation)) * h;
-      const Rgb c = utilisation_colour(l.utilisation);
+      const Rgb c = utilisation_colour(l.utilisation, colours.picture);
       const ImVec2 a0(p0.x + i * w + (w > 3 ? 1 : 0), p1.y - bar), a1(p0.x + (i + 1) * w, p1.y);
       dl->AddRectFilled(a0, a1, ImGui::ColorConvertFloat4ToU32(ImVec4(c.r, c.g, c.b, 1)));
       if (mouse.x >= a0.x - (w > 3 ? 1 : 0) && mouse.x < a1.x && mouse.y >= p0.y && mouse.y <= p1.y) hovered = arcs[i];
     }
-    dl->AddLine(ImVec2(p0.x, p1.y - h), ImVec2(p1.x, p1.y - h), kAxis);
+    dl->AddLine(ImVec2(p0.x, p1.y - h), ImVec2(p1.x, p1.y - h), colours.chart_axis);
     if (hovered >= 0 && ImGui::IsItemHovered()) {
       const ArcLoad& l = r->arcs[hovered];
       ImGui::SetTooltip("%s: load %.6g of %.6g (%.1f %%)", net.arcs[hovered].id.c_str(), l.load, net.arcs[hovered].capacity,

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "panels/field_editors.h"
 #include "panels/panels.h"
 
@@ -147,7 +148,7 @@ void draw_inspector() {
     ImGui::SameLine();
     if (ImGui::Button("Restore to service")) action("restore-selected");
     static float factor = 2.0f;
-    ImGui::SetNextItemWidth(120);
+    ImGui::SetNextItemWidth(120 * ui_scale());
     ImGui::InputFloat("##factor", &factor, 0, 0, "%.3g");
     ImGui::SameLine();
     if (ImGui::Button("Multiply capacity (upgrade)") && std::isfinite(factor) && factor >= 0)

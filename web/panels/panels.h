@@ -1,6 +1,7 @@
 // The page's panels around the canvas, each drawn from the App state every frame.
 #pragma once
 
+#include <string>
 #include <vector>
 
 namespace apportion::web {
@@ -16,5 +17,8 @@ void draw_charts();        // shares sorted with tiers marked; arc utilisation
 // for the test hook).
 const std::vector<int>& demand_rows();
 const std::vector<int>& share_rows();
+// The shares table's "Bound by" of demand k: its amount, its binding arcs by name, or why it
+// got 0.
+std::string share_bound_text(int k);
 
 }  // namespace apportion::web

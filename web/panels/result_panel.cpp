@@ -9,8 +9,10 @@
 #include <string>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "panels/panels.h"
 #include "panels/table_rows.h"
+#include "apportion/results/zero_share_reason.h"
 
 namespace apportion::web {
 
@@ -20,6 +22,37 @@ double share_change(int k) {
   if (a.previous_shares.empty() || k >= static_cast<int>(a.result.demands.size())) return std::nan("");
   auto before = a.previous_shares.find(a.doc.demands[k].id);
   return before == a.previous_shares.end() ? std::nan("") : a.result.demands[k].share - before->second;
+}
+
+namespace {
+
+// Names as the canvas shows them: labels first, the id where there is no label.
+std::string demand_name(const Network& net, int k) {
+  return net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label;
+}
+std::string ends_name(const Network& net, int k) {
+  return node_name(net, net.demands[k].origin) + " \u2192 " + node_name(net, net.demands[k].destination);
+}
+// What stops demand k: its amount, the arcs that bind it (by their ends' names), or why it
+// got nothing at all.
+std::string bound_text(const Network& net, const MultiflowResult& r, int k) {
+  const DemandShare& d = r.demands[k];
+  if (d.limited_by_amount) return "its amount";
+  const std::string zero = zero_share_reason(net, r, k);
+  if (!zero.empty() && d.binding_arcs.empty()) return "0: " + zero;
+  std::string bound;
+  for (int e : d.binding_arcs) bound += (bound.empty() ? "" : ", ") + arc_name(net, e);
+  if (d.binding_arcs_form_cut) bound += " (a cut)";
+  return bound;
+}
+
+}  // namespace
+
+std::string share_bound_text(int k) {
+  const App& a = app();
+  if (!result_is_current() || k < 0 || k >= static_cast<int>(std::min(a.doc.demands.size(), a.result.demands.size())))
+    return "";
+  return bound_text(a.doc, a.result, k);
 }
 
 const std::vector<int>& share_rows() {
@@ -36,12 +69,13 @@ const std::vector<int>& share_rows() {
         const DemandShare &p = r.demands[x], &q = r.demands[y];
         auto change = [](double c) { return std::isnan(c) ? -1e300 : c; };
         switch (column) {
-          case 0: return net.demands[x].id < net.demands[y].id;
-          case 1: return p.share < q.share;
-          case 2: return p.percent_of_amount < q.percent_of_amount;
-          case 3: return p.tier < q.tier;
-          case 4: return p.binding_arcs.size() < q.binding_arcs.size();
-          case 5: return change(share_change(x)) < change(share_change(y));
+          case 0: return demand_name(net, x) < demand_name(net, y);
+          case 1: return ends_name(net, x) < ends_name(net, y);
+          case 2: return p.share < q.share;
+          case 3: return p.percent_of_amount < q.percent_of_amount;
+          case 4: return p.tier < q.tier;
+          case 5: return bound_text(net, r, x) < bound_text(net, r, y);
+          case 6: return change(share_change(x)) < change(share_change(y));
         }
         return false;
       });
@@ -60,20 +94,32 @@ void draw_result_panel() {
     return;
   }
   const char* unit = net.units.capacity.c_str();
+  // What the rule optimises, so that every number below reads against it.
+  for (int i = 0; i < static_cast<int>(std::size(kObjectives)); ++i)
+    if (kObjectives[i] == r.objective) ImGui::TextDisabled("%s", kObjectiveLabels[i]);
+  ImGui::PushTextWrapPos(0);
+  for (int i = 0; i < static_cast<int>(std::size(kObjectives)); ++i)
+    if (kObjectives[i] == r.objective) ImGui::TextDisabled("%s", kObjectiveExplanations[i]);
   if (r.objective == FairObjective::kFeasibility) {
     if (r.all_demands_met)
-      ImGui::TextWrapped("Every demand can be met in full (lambda = %.4g).", r.lambda);
+      ImGui::Text("Every demand can be met in full (lambda = %.4g).", r.lambda);
     else
-      ImGui::TextWrapped("Not every demand can be met: at most %.1f%% of every amount at once; at best %.6g %s stay "
-                         "undelivered.", 100 * r.lambda, r.shortfall, unit);
+      ImGui::Text("Not every demand can be met: at most %.1f%% of every amount at once; at best %.6g %s stay "
+                  "undelivered.", 100 * r.lambda, r.shortfall, unit);
+    if (!r.overloaded_cut_source_side.empty())
+      ImGui::Text("An overloaded cut (purple on the canvas, its origin side ringed): the demands across it ask for "
+                  "%.6g %s, its arcs carry at most %.6g %s.", r.overloaded_cut_demand, unit, r.overloaded_cut_capacity,
+                  unit);
   }
   ImGui::Text("Throughput %.6g %s", r.throughput, unit);
   ImGui::Text("Minimum normalised share %.6g, Jain's index %.4f", r.min_normalised_share, r.jain_index);
   if (r.lambda >= 0) ImGui::Text("Max concurrent flow lambda %.6g", r.lambda);
   if (r.price_of_fairness >= 0)
-    ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g", 100 * r.price_of_fairness, r.max_throughput);
+    ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g %s", 100 * r.price_of_fairness,
+                r.max_throughput, unit);
   ImGui::Text("Independent check: %s (largest capacity excess %.2g of the arc's capacity)", r.check.ok ? "passed" : "FAILED",
               r.check.max_capacity_violation);
+  ImGui::PopTextWrapPos();
 
   // Filter: everything, one demand, or one tier.
   std::string preview = "all demands";
@@ -81,7 +127,7 @@ void draw_result_panel() {
     preview = "demand " + net.demands[a.view.filter_demand].id;
   else if (a.view.filter_tier > 0)
     preview = "tier " + std::to_string(a.view.filter_tier);
-  ImGui::SetNextItemWidth(220);
+  ImGui::SetNextItemWidth(220 * ui_scale());
   if (ImGui::BeginCombo("show on the canvas", preview.c_str())) {
     if (ImGui::Selectable("all demands", a.view.filter_demand < 0 && a.view.filter_tier == 0))
       a.view.filter_demand = -1, a.view.filter_tier = 0;
@@ -100,15 +146,17 @@ void draw_result_panel() {
   ImGui::SameLine();
   ImGui::TextDisabled("%zu of %zu demands; click a header to sort", rows.size(), r.demands.size());
   const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_Resizable |
-                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_SizingStretchProp | ImGuiTableFlags_Sortable |
+                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_SizingFixedFit | ImGuiTableFlags_Sortable |
                                 ImGuiTableFlags_SortTristate;
-  if (!ImGui::BeginTable("shares", have_change ? 6 : 5, flags)) return;
-  ImGui::TableSetupScrollFreeze(0, 1);
+  if (!ImGui::BeginTable("shares", have_change ? 7 : 6, flags)) return;
+  ImGui::TableSetupScrollFreeze(1, 1);
+  const std::string share_header = net.units.capacity.empty() ? "Share" : "Share (" + net.units.capacity + ")";
   ImGui::TableSetupColumn("Demand");
-  ImGui::TableSetupColumn("Share");
+  ImGui::TableSetupColumn("From \u2192 to");
+  ImGui::TableSetupColumn(share_header.c_str());
   ImGui::TableSetupColumn("% of amount");
   ImGui::TableSetupColumn("Tier");
-  ImGui::TableSetupColumn("Bound by");
+  ImGui::TableSetupColumn("Bound by", ImGuiTableColumnFlags_WidthStretch);
   if (have_change) ImGui::TableSetupColumn("Change");
   ImGui::TableHeadersRow();
   take_sort_specs(a.share_view);
@@ -118,33 +166,47 @@ void draw_result_panel() {
     for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
       const int k = rows[row];
       const DemandShare& d = r.demands[k];
+      const Demand& dm = net.demands[k];
       ImGui::TableNextRow();
       ImGui::TableNextColumn();
       // Selecting a demand shows its paths and binding arcs on the canvas.
       const bool selected = a.view.filter_demand == k;
-      if (ImGui::Selectable(net.demands[k].id.c_str(), selected, ImGuiSelectableFlags_SpanAllColumns)) {
+      ImGui::PushID(k);
+      if (ImGui::Selectable(demand_name(net, k).c_str(), selected, ImGuiSelectableFlags_SpanAllColumns)) {
         a.view.filter_demand = selected ? -1 : k;
         a.view.filter_tier = 0;
         a.selection = Selection{};
         if (!selected) a.selection.demands.push_back(k);
       }
-      if (!net.demands[k].label.empty() && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", net.demands[k].label.c_str());
+      ImGui::PopID();
+      if (ImGui::IsItemHovered())
+        ImGui::SetTooltip("demand %s%s%s: from %s to %s", dm.id.c_str(), dm.label.empty() ? "" : ", ",
+                          dm.label.c_str(), node_name(net, dm.origin).c_str(), node_name(net, dm.destination).c_str());
+      if (!dm.label.empty()) {
+        ImGui::SameLine();
+        ImGui::TextDisabled("%s", dm.id.c_str());
+      }
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(ends_name(net, k).c_str());
       ImGui::TableNextColumn();
       ImGui::Text("%.6g", d.share);
       ImGui::TableNextColumn();
-      if (d.percent_of_amount >= 0) ImGui::Text("%.1f%%", d.percent_of_amount);
-      else ImGui::TextUnformatted("-");
+      if (d.percent_of_amount >= 0) ImGui::Text("%.1f %%", d.percent_of_amount);
+      else ImGui::TextDisabled("no amount");
       ImGui::TableNextColumn();
       if (d.tier) ImGui::Text("%d", d.tier);
       else ImGui::TextUnformatted("-");
       ImGui::TableNextColumn();
-      std::string bound = d.limited_by_amount ? "its amount" : "";
-      for (int e : d.binding_arcs) bound += (bound.empty() ? "" : " ") + net.arcs[e].id;
-      if (d.binding_arcs_form_cut) bound += " (cut)";
+      const std::string bound = bound_text(net, r, k);
       ImGui::TextUnformatted(bound.c_str());
+      if (ImGui::IsItemHovered() && !d.binding_arcs.empty()) {
+        std::string ids;
+        for (int e : d.binding_arcs) ids += (ids.empty() ? "" : " ") + net.arcs[e].id;
+        ImGui::SetTooltip("binding arcs: %s", ids.c_str());
+      }
       if (have_change) {
         ImGui::TableNextColumn();
-        auto before = a.previous_shares.find(net.demands[k].id);
+        auto before = a.previous_shares.find(dm.id);
         if (before == a.previous_shares.end()) {
           ImGui::TextUnformatted("new");
         } else {

@@ -13,12 +13,23 @@
 #include <vector>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 
 namespace apportion::web {
 
 inline std::string lowered(std::string s) {
   for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
   return s;
+}
+
+// A node and an arc as the canvas names them: the node's label (its id when it has none);
+// an arc by its ends, "A \u2192 B" (or "A \u2194 B" when both directions share it).
+inline std::string node_name(const Network& net, int v) {
+  return net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
+}
+inline std::string arc_name(const Network& net, int e) {
+  const Arc& a = net.arcs[e];
+  return node_name(net, a.from) + (a.shared_two_way ? " \u2194 " : " \u2192 ") + node_name(net, a.to);
 }
 
 // Whether demand k's id, label, origin or destination id contains the lower-case needle.
@@ -75,7 +86,7 @@ inline void take_sort_specs(TableView& v) {
 inline void filter_box(const char* id, TableView& v, const char* hint) {
   char buf[128];
   std::snprintf(buf, sizeof buf, "%s", v.filter.c_str());
-  ImGui::SetNextItemWidth(240);
+  ImGui::SetNextItemWidth(240 * ui_scale());
   if (ImGui::InputTextWithHint(id, hint, buf, sizeof buf)) v.filter = buf;
 }
 

@@ -12,6 +12,7 @@
 #include <string>
 
 #include "app/app_state.h"
+#include "app/appearance.h"
 #include "browser/browser_bridge.h"
 #include "panels/panels.h"
 
@@ -19,16 +20,54 @@ namespace apportion::web {
 
 namespace {
 
-bool tool_button(const char* label, Tool tool, const char* tip) {
-  App& a = app();
-  const bool on = a.tool == tool;
-  if (on) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_ButtonActive));
-  const bool pressed = ImGui::Button(label);
-  if (on) ImGui::PopStyleColor();
-  if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
-  if (pressed) a.tool = tool, a.view.pending_from = -1;
-  return pressed;
-}
+// The toolbar's items left to right, a new row when the next would not fit the window (at
+// 1,024 px it takes two or three rows); each item's rectangle is kept for the test hook.
+// Labels come before their fields.
+class ToolbarFlow {
+ public:
+  // Before an item `width` wide: on this row when it fits, else on the next.
+  void next(float width) {
+    if (!first_) {
+      ImGui::SameLine();
+      if (ImGui::GetCursorPosX() + width > ImGui::GetWindowContentRegionMax().x) ImGui::NewLine();
+    }
+    first_ = false;
+  }
+  void new_row() { first_ = true; }
+  // The last item's rectangle, under `name`.
+  void record(const char* name) {
+    const ImVec2 p = ImGui::GetItemRectMin(), q = ImGui::GetItemRectMax();
+    app().toolbar_items.push_back({name, {p.x, p.y, q.x, q.y}});
+  }
+  bool button(const char* label, const char* name) {
+    next(ImGui::CalcTextSize(label, nullptr, true).x + 2 * ImGui::GetStyle().FramePadding.x);
+    const bool pressed = ImGui::Button(label);
+    record(name);
+    return pressed;
+  }
+  // A label, and room on its row for the field of `field_width` that follows it.
+  void label(const char* text, float field_width, const char* name) {
+    const float gap = ImGui::GetStyle().ItemInnerSpacing.x;
+    next(ImGui::CalcTextSize(text).x + gap + field_width);
+    ImGui::AlignTextToFramePadding();
+    ImGui::TextUnformatted(text);
+    record((std::string("label:") + name).c_str());
+    ImGui::SameLine(0, gap);
+    ImGui::SetNextItemWidth(field_width);
+  }
+  void tool(const char* label, Tool tool, const char* tip) {
+    App& a = app();
+    const bool on = a.tool == tool;
+    if (on) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_ButtonActive));
+    const bool pressed = button(label, label);
+    if (on) ImGui::PopStyleColor();
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
+    if (pressed) a.tool = tool, a.view.pending_from = -1;
+  }
+
+ private:
+  bool first_ = true;
+};
 
 void update_search() {
   App& a = app();
@@ -123,7 +162,7 @@ void table_preview(MatrixChoices& m) {
     ImGui::BeginChild("table-messages", ImVec2(0, std::min(160.0f, 20.0f * t.diagnostics.items.size() + 8)), true);
     for (const Diagnostic& d : t.diagnostics.items) {
       const bool error = d.severity == Severity::kError;
-      ImGui::PushStyleColor(ImGuiCol_Text, error ? ImVec4(1.0f, 0.55f, 0.45f, 1.0f) : ImVec4(0.95f, 0.85f, 0.5f, 1.0f));
+      ImGui::PushStyleColor(ImGuiCol_Text, error ? palette().error_text : palette().warning_text);
       ImGui::TextWrapped("%s", d.to_string().c_str());
       ImGui::PopStyleColor();
     }
@@ -137,7 +176,7 @@ void table_preview(MatrixChoices& m) {
 void matrix_dialog() {
   App& a = app();
   MatrixChoices& m = a.matrix;
-  ImGui::SetNextWindowSize(ImVec2(520, 0), ImGuiCond_Appearing);
+  ImGui::SetNextWindowSize(ImVec2(520 * ui_scale(), 0), ImGuiCond_Appearing);
   if (!ImGui::BeginPopupModal("Add demands", nullptr, ImGuiWindowFlags_NoSavedSettings)) return;
   if (ImGui::IsWindowAppearing()) m.error.clear();
   ImGui::RadioButton("generate pairs", &m.source, 0);
@@ -176,20 +215,20 @@ void matrix_dialog() {
     if (m.amounts == 0) {
       ImGui::TextWrapped("Pair (i, j) asks total x m_i m_j / (sum over the pairs of m_p m_q), node masses m drawn "
                          "from [1, 10) with the seed. Total 0: a third of the total capacity.");
-      ImGui::SetNextItemWidth(160);
+      ImGui::SetNextItemWidth(160 * ui_scale());
       ImGui::InputDouble(("total" + unit).c_str(), &m.total, 0, 0, "%.6g");
-      ImGui::SetNextItemWidth(160);
+      ImGui::SetNextItemWidth(160 * ui_scale());
       ImGui::InputInt("seed", &m.seed);
     } else if (m.amounts == 1) {
-      ImGui::SetNextItemWidth(160);
+      ImGui::SetNextItemWidth(160 * ui_scale());
       ImGui::InputDouble(("amount of each pair" + unit).c_str(), &m.amount, 0, 0, "%.6g");
     }
-    ImGui::SetNextItemWidth(160);
+    ImGui::SetNextItemWidth(160 * ui_scale());
     ImGui::InputDouble("weight of each", &m.weight, 0, 0, "%.6g");
   }
   ImGui::Checkbox("replace the existing demands", &m.replace);
   if (!m.error.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::PushStyleColor(ImGuiCol_Text, palette().error_text);
     ImGui::TextWrapped("%s", m.error.c_str());
     ImGui::PopStyleColor();
   }
@@ -209,7 +248,7 @@ void graphml_dialog() {
   App& a = app();
   GraphmlChoices& g = a.graphml;
   if (g.requested) ImGui::OpenPopup("Open topology"), g.requested = false;
-  ImGui::SetNextWindowSize(ImVec2(520, 0), ImGuiCond_Appearing);
+  ImGui::SetNextWindowSize(ImVec2(520 * ui_scale(), 0), ImGuiCond_Appearing);
   if (!ImGui::BeginPopupModal("Open topology", nullptr, ImGuiWindowFlags_NoSavedSettings)) return;
   if (!g.pending) {
     ImGui::CloseCurrentPopup();
@@ -218,7 +257,7 @@ void graphml_dialog() {
   }
   ImGui::TextWrapped("%s: how should its links' capacities be read?", g.name.c_str());
   std::string current = g.attribute >= 0 ? g.attributes[g.attribute].name : "(none: every link gets the default)";
-  ImGui::SetNextItemWidth(260);
+  ImGui::SetNextItemWidth(260 * ui_scale());
   if (ImGui::BeginCombo("capacity from", current.c_str())) {
     if (ImGui::Selectable("(none: every link gets the default)", g.attribute < 0)) g.attribute = -1;
     for (int i = 0; i < static_cast<int>(g.attributes.size()); ++i) {
@@ -230,28 +269,28 @@ void graphml_dialog() {
   }
   if (g.attribute >= 0) {
     const char* units[] = {"already in the network's unit", "bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};
-    ImGui::SetNextItemWidth(260);
+    ImGui::SetNextItemWidth(260 * ui_scale());
     ImGui::Combo("its values are in", &g.value_unit, units, IM_ARRAYSIZE(units));
   }
   char unit[64];
   std::snprintf(unit, sizeof unit, "%s", g.unit.c_str());
-  ImGui::SetNextItemWidth(260);
+  ImGui::SetNextItemWidth(260 * ui_scale());
   if (ImGui::InputText("network's capacity unit", unit, sizeof unit)) g.unit = unit;
-  ImGui::SetNextItemWidth(260);
+  ImGui::SetNextItemWidth(260 * ui_scale());
   ImGui::InputDouble("capacity of links without it", &g.default_capacity, 0, 0, "%.6g");
   const char* lengths[] = {"not used", "as each arc's cost (km)", "as each arc's transit time"};
-  ImGui::SetNextItemWidth(260);
+  ImGui::SetNextItemWidth(260 * ui_scale());
   ImGui::Combo("great-circle length", &g.length_as, lengths, IM_ARRAYSIZE(lengths));
   if (ImGui::IsItemHovered())
     ImGui::SetTooltip("From the nodes' Longitude and Latitude; links with an end without them get none.");
   if (g.length_as == 2) {
-    ImGui::SetNextItemWidth(260);
+    ImGui::SetNextItemWidth(260 * ui_scale());
     ImGui::InputDouble("speed (km per time unit)", &g.speed, 0, 0, "%.6g");
   }
   ImGui::RadioButton("an undirected link is one arc shared by both directions", &g.undirected, 0);
   ImGui::RadioButton("an undirected link is two arcs, one per direction", &g.undirected, 1);
   if (!g.error.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::PushStyleColor(ImGuiCol_Text, palette().error_text);
     ImGui::TextWrapped("%s", g.error.c_str());
     ImGui::PopStyleColor();
   }
@@ -267,17 +306,16 @@ void graphml_dialog() {
 void draw_toolbar() {
   App& a = app();
   const bool solved = current_result() != nullptr;
-  if (ImGui::Button("Open network...")) action("open");
+  const float k = ui_scale();
+  a.toolbar_items.clear();
+  ToolbarFlow bar;
+  if (bar.button("Open network...", "open")) action("open");
   graphml_dialog();
-  ImGui::SameLine();
-  if (ImGui::Button("Save network")) action("save-network");
-  ImGui::SameLine();
-  if (ImGui::Button("Copy share link")) action("share-link");
-  ImGui::SameLine();
-  if (ImGui::Button("Recover...")) ImGui::OpenPopup("recover");
+  if (bar.button("Save network", "save")) action("save-network");
+  if (bar.button("Copy share link", "share")) action("share-link");
+  if (bar.button("Recover...", "recover")) ImGui::OpenPopup("recover");
   recover_menu();
-  ImGui::SameLine();
-  if (ImGui::Button("Export...")) ImGui::OpenPopup("export");
+  if (bar.button("Export...", "export")) ImGui::OpenPopup("export");
   if (ImGui::BeginPopup("export")) {
     if (ImGui::MenuItem("Shares per demand (CSV)", nullptr, false, solved)) action("export-demands-csv");
     if (ImGui::MenuItem("Loads per arc (CSV)", nullptr, false, solved)) action("export-arcs-csv");
@@ -287,78 +325,88 @@ void draw_toolbar() {
     if (ImGui::MenuItem("Demands as a matrix (CSV)")) action("export-matrix-csv");
     if (ImGui::IsItemHovered())
       ImGui::SetTooltip("Origins down, destinations across. Open such a file to add its demands to the network.");
-    if (ImGui::MenuItem("Picture (SVG)")) action("export-svg");
-    if (ImGui::MenuItem("Canvas (PNG)")) action("export-png");
+    if (ImGui::MenuItem("Picture for a report (SVG)")) action("export-svg");
+    if (ImGui::IsItemHovered())
+      ImGui::SetTooltip("The whole network on white, with the rule, the totals, a legend, the date and the caution.");
+    if (ImGui::MenuItem("Canvas as shown (PNG)")) action("export-png");
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("The network canvas alone, as it is on screen now.");
     ImGui::EndPopup();
   }
-  ImGui::SameLine();
   ImGui::BeginDisabled(!a.history.can_undo());
-  if (ImGui::Button("Undo")) undo();
+  if (bar.button("Undo", "undo")) undo();
   if (ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled))
     ImGui::SetTooltip("Undo %s (Ctrl+Z)", a.history.undo_name().c_str());
   ImGui::EndDisabled();
-  ImGui::SameLine();
   ImGui::BeginDisabled(!a.history.can_redo());
-  if (ImGui::Button("Redo")) redo();
+  if (bar.button("Redo", "redo")) redo();
   if (ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled))
     ImGui::SetTooltip("Redo %s (Ctrl+Y or Ctrl+Shift+Z)", a.history.redo_name().c_str());
   ImGui::EndDisabled();
-  ImGui::SameLine();
-  ImGui::TextDisabled("|");
-  ImGui::SameLine();
-  tool_button("Select", Tool::kSelect, "Click to select (Shift adds), drag nodes to move them, drag on empty canvas to "
-                                       "select a box. Right-drag pans, the wheel zooms. (Esc)");
-  ImGui::SameLine();
-  tool_button("Add node", Tool::kAddNode, "Click on empty canvas to add a node there.");
-  ImGui::SameLine();
-  tool_button("Add arc", Tool::kAddArc, "Click the tail node, then the head node.");
-  ImGui::SameLine();
-  tool_button("Add demand", Tool::kAddDemand, "Click the origin, then the destination.");
-  ImGui::SameLine();
-  if (ImGui::Button("Demands...") || a.matrix_dialog_requested) ImGui::OpenPopup("Add demands");
+  bar.tool("Select", Tool::kSelect, "Click to select (Shift adds), drag nodes to move them, drag on empty canvas to "
+                                    "select a box. Right-drag pans, the wheel zooms. (Esc)");
+  bar.tool("Add node", Tool::kAddNode, "Click on empty canvas to add a node there.");
+  bar.tool("Add arc", Tool::kAddArc, "Click the tail node, then the head node.");
+  bar.tool("Add demand", Tool::kAddDemand, "Click the origin, then the destination.");
+  if (bar.button("Demands...", "demands") || a.matrix_dialog_requested) ImGui::OpenPopup("Add demands");
   a.matrix_dialog_requested = false;
   if (ImGui::IsItemHovered())
-    ImGui::SetTooltip("Add a demand for every pair of nodes (all, or the selected ones) at once: a traffic matrix.");
+    ImGui::SetTooltip("Add a demand for every pair of nodes (all, or the selected ones) at once, or paste a table.");
   matrix_dialog();
-  ImGui::SameLine();
-  if (ImGui::Button("Fit")) action("fit");
-  ImGui::SameLine();
-  if (ImGui::Button("Arrange")) action("arrange");
+  if (bar.button("Fit", "fit")) action("fit");
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("Fit the whole network into the canvas.");
+  if (bar.button("Arrange", "arrange")) action("arrange");
   if (ImGui::IsItemHovered()) ImGui::SetTooltip("Place all nodes by force-directed layout (undoable).");
-  ImGui::SameLine();
-  ImGui::SetNextItemWidth(150);
-  if (ImGui::InputTextWithHint("##search", "find id or label", a.search, sizeof a.search)) update_search();
+  bar.label("Find", 150 * k, "find");
+  if (ImGui::InputTextWithHint("##search", "id or label", a.search, sizeof a.search)) update_search();
+  bar.record("find");
+  if (bar.button("Display...", "display")) ImGui::OpenPopup("display");
+  if (ImGui::BeginPopup("display")) {
+    ImGui::TextUnformatted("Theme");
+    if (ImGui::RadioButton("dark", !appearance().light)) set_theme(false);
+    ImGui::SameLine();
+    if (ImGui::RadioButton("light (meetings, print)", appearance().light)) set_theme(true);
+    ImGui::TextUnformatted("Text size");
+    for (int p : kScalePercents) {
+      const std::string name = std::to_string(p) + " %";
+      if (ImGui::RadioButton(name.c_str(), appearance().scale_percent == p)) set_scale_percent(p);
+      if (p != 130 && p != kScalePercents[std::size(kScalePercents) - 1]) ImGui::SameLine();
+    }
+    ImGui::TextDisabled("Remembered in this browser.");
+    ImGui::EndPopup();
+  }
 
-  // Rule, options, solve.
-  ImGui::SetNextItemWidth(250);
-  if (ImGui::Combo("rule", &a.objective, kObjectiveLabels, IM_ARRAYSIZE(kObjectiveLabels))) request_solve();
-  ImGui::SameLine();
+  // Rule, options, solve: on a row of their own.
+  bar.new_row();
+  bar.label("Rule", 250 * k, "rule");
+  if (ImGui::Combo("##rule", &a.objective, kObjectiveLabels, IM_ARRAYSIZE(kObjectiveLabels))) request_solve();
+  if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", kObjectiveExplanations[a.objective]);
+  bar.record("rule");
   if (kObjectives[a.objective] == FairObjective::kTradeoff) {
     float eps = static_cast<float>(a.options.epsilon);
-    ImGui::SetNextItemWidth(120);
-    if (ImGui::SliderFloat("fairness given up", &eps, 0.0f, 1.0f, "%.2f")) a.options.epsilon = eps;
+    bar.label("Fairness given up", 120 * k, "tradeoff");
+    if (ImGui::SliderFloat("##tradeoff", &eps, 0.0f, 1.0f, "%.2f")) a.options.epsilon = eps;
     if (ImGui::IsItemDeactivatedAfterEdit()) request_solve();
-    ImGui::SameLine();
+    bar.record("tradeoff");
   }
-  ImGui::SetNextItemWidth(80);
-  if (ImGui::InputInt("hop limit", &a.options.routing.hop_limit)) {
+  bar.label("Hop limit", 90 * k, "hops");
+  if (ImGui::InputInt("##hops", &a.options.routing.hop_limit)) {
     a.options.routing.hop_limit = std::max(0, a.options.routing.hop_limit);
     request_solve();
   }
   if (ImGui::IsItemHovered()) ImGui::SetTooltip("Paths of at most this many arcs (0: no limit).");
-  ImGui::SameLine();
-  ImGui::SetNextItemWidth(80);
-  if (ImGui::InputInt("paths per demand", &a.options.routing.k_paths)) {
+  bar.record("hops");
+  bar.label("Paths per demand", 90 * k, "paths");
+  if (ImGui::InputInt("##paths", &a.options.routing.k_paths)) {
     a.options.routing.k_paths = std::max(0, a.options.routing.k_paths);
     request_solve();
   }
   if (ImGui::IsItemHovered()) ImGui::SetTooltip("Only the k shortest paths of each demand (0: any path).");
-  ImGui::SameLine();
+  bar.record("paths");
+  bar.next(ImGui::GetFrameHeight() + ImGui::CalcTextSize("solve after each edit").x + ImGui::GetStyle().ItemInnerSpacing.x);
   ImGui::Checkbox("solve after each edit", &a.auto_solve);
-  ImGui::SameLine();
+  bar.record("auto-solve");
   if (a.solve.running) {
-    if (ImGui::Button("Cancel")) cancel_solve();
-    ImGui::SameLine();
+    if (bar.button("Cancel", "cancel")) cancel_solve();
     const double seconds = (emscripten_get_now() - a.solve.started_ms) / 1000.0;
     const float fraction = a.solve.demands > 0 ? static_cast<float>(a.solve.settled) / a.solve.demands : 0.0f;
     // Time left, from the rate at which demands settle so far: rough (late tiers can be
@@ -370,25 +418,28 @@ void draw_toolbar() {
     std::snprintf(overlay, sizeof overlay, "%s: %d of %d demands settled, %d LPs, %.1f s%s",
                   a.solve.stage.empty() ? "starting" : a.solve.stage.c_str(), a.solve.settled, a.solve.demands,
                   a.solve.lp_solves, seconds, left);
+    bar.next(300 * k);
     ImGui::ProgressBar(fraction, ImVec2(-1, 0), overlay);
+    bar.record("progress");
   } else {
-    if (ImGui::Button("Solve")) request_solve();
-    ImGui::SameLine();
+    if (bar.button("Solve", "solve")) request_solve();
+    bar.next(ImGui::GetFrameHeight() + ImGui::CalcTextSize("animate").x + ImGui::GetStyle().ItemInnerSpacing.x);
     ImGui::Checkbox("animate", &a.view.animate);
+    bar.record("animate");
   }
 }
 
 void draw_notices() {
   App& a = app();
   if (!a.open_errors.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.55f, 0.45f, 1.0f));
+    ImGui::PushStyleColor(ImGuiCol_Text, palette().error_text);
     ImGui::TextUnformatted("The file was not opened; the current network is unchanged:");
     for (const std::string& m : a.open_errors) ImGui::BulletText("%s", m.c_str());
     ImGui::PopStyleColor();
     if (ImGui::SmallButton("Dismiss")) a.open_errors.clear();
   }
   if (a.other_tab_saved) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1.0f, 0.75f, 0.35f, 1.0f));
+    ImGui::PushStyleColor(ImGuiCol_Text, palette().warning_text);
     ImGui::TextWrapped("Another tab autosaved a network in this browser. Both tabs' work is kept: this tab's next "
                        "edit is saved as a new version, and Recover... lists the other tab's.");
     ImGui::PopStyleColor();
@@ -408,7 +459,7 @@ void draw_notices() {
     }
     ++shown;
     const bool error = d.severity == Severity::kError;
-    ImGui::PushStyleColor(ImGuiCol_Text, error ? ImVec4(1.0f, 0.55f, 0.45f, 1.0f) : ImVec4(0.85f, 0.85f, 0.6f, 1.0f));
+    ImGui::PushStyleColor(ImGuiCol_Text, error ? palette().error_text : palette().warning_text);
     const std::string text = d.to_string() + "##diag" + std::to_string(shown);
     if (ImGui::Selectable(text.c_str())) select_item(d.item_kind, d.item_id);
     ImGui::PopStyleColor();
