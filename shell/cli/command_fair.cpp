@@ -2,6 +2,7 @@
 #include <chrono>
 #include <cmath>
 #include <cstdio>
+#include <ctime>
 #include <iostream>
 #include <sstream>
 #ifndef __EMSCRIPTEN__
@@ -12,6 +13,7 @@
 #include "apportion/multiflow/fair_multiflow.h"
 #include "apportion/results/flow_result_export.h"
 #include "apportion/results/multiflow_result_export.h"
+#include "apportion/results/network_svg.h"
 #include "commands.h"
 #include "network_loader.h"
 #include "text_table.h"
@@ -44,6 +46,8 @@ Options:
   --all-arcs       list arcs without load too
   --json OUT       the whole result as JSON (core/FORMAT.md)
   --csv PREFIX     PREFIX.demands.csv, PREFIX.arcs.csv, PREFIX.paths.csv
+  --svg OUT        a picture for a report: the network with its loads on white, with the
+                   name, the rule, the totals, the date, a legend and the caution
   --progress       report the solve's progress on standard error (stage, round, demands
                    settled, LPs, time); shown anyway when standard error is a terminal
   (and the reading options of 'apportion validate --help')
@@ -53,6 +57,18 @@ Every result is verified by an independent checker before it is printed.
 Example:
   apportion fair demo-networks/harrowmere-fibre.json --paths --json /tmp/fair.json
 )";
+
+// The rule as the picture's subtitle names it.
+const char* rule_in_words(FairObjective o) {
+  switch (o) {
+    case FairObjective::kMaxMinFair: return "max-min fair shares (weighted)";
+    case FairObjective::kMaxConcurrent: return "max concurrent flow";
+    case FairObjective::kMaxThroughput: return "max throughput";
+    case FairObjective::kTradeoff: return "throughput with a fairness floor";
+    case FairObjective::kFeasibility: return "can every demand be met?";
+  }
+  return "";
+}
 
 FairObjective objective_of(const std::string& cmd) {
   if (cmd == "throughput") return FairObjective::kMaxThroughput;
@@ -146,7 +162,7 @@ class ProgressLine {
 int run_fair(int argc, char** argv) {
   const std::string cmd = argv[1];
   std::set<std::string> valued = kLoaderOptions;
-  valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv"});
+  valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv", "svg"});
   Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs", "progress"});
   if (args.has("help")) return std::cout << kHelp, kExitOk;
   if (usage_error(args, cmd, 1, kHelp)) return kExitBadInput;
@@ -271,6 +287,18 @@ int run_fair(int argc, char** argv) {
   if (auto p = args.get("json"); p && !guard.write(*p, multiflow_json(net, r), error)) {
     std::cerr << "apportion: " << error << '\n';
     return kExitBadInput;
+  }
+  if (auto p = args.get("svg")) {
+    PictureOptions o;
+    o.rule = rule_in_words(r.objective);
+    char date[32] = "";
+    const std::time_t now = std::time(nullptr);
+    std::strftime(date, sizeof date, "%Y-%m-%d %H:%M", std::localtime(&now));
+    o.date = date;
+    if (!guard.write(*p, network_svg(net, &r, o), error)) {
+      std::cerr << "apportion: " << error << '\n';
+      return kExitBadInput;
+    }
   }
   if (auto p = args.get("csv")) {
     if (!guard.write(*p + ".demands.csv", multiflow_demands_csv(net, r), error) ||

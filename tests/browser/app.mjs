@@ -382,6 +382,16 @@ try {
     check('corrupt file: an error is shown', f && f.messages.length > 0, JSON.stringify(f));
     check('corrupt file: the network is unchanged', f && f.network === lowmoor.network);
     await b.page.screenshot({ path: path.join(artefacts, 'corrupt-file.png') });
+    // Many errors: wrapped, in a box that scrolls, so that the tabs stay in sight.
+    const badArcs = Array.from({ length: 60 }, (_, i) =>
+      `{"id": "bad-${i}", "from": "nowhere-${i}", "to": "elsewhere-${i}", "capacity": 1}`).join(',');
+    const many = await openFile(b, writeTmp('many-errors.json', `{"format": "apportion-network", "version": 1,
+      "nodes": [{"id": "a"}], "arcs": [${badArcs}], "demands": []}`), 'open-failed');
+    const afterMany = await b.state();
+    check('many file errors: listed, and the tabs stay in the upper half of the window',
+          many && many.messages.length >= 20 && afterMany.tabs_y < afterMany.window[1] / 2,
+          JSON.stringify([many && many.messages.length, afterMany.tabs_y, afterMany.window]));
+    await b.page.screenshot({ path: path.join(artefacts, 'many-file-errors.png') });
 
     // 6. Share link: copied to the clipboard and said so; the address bar keeps no fragment,
     // so an edit made after copying survives a reload (the autosave opens, not the link).
@@ -1036,6 +1046,8 @@ try {
     check('single file: a share link says how to share from a page opened as a file',
           sa && sa.notice.includes('opened as a file') && sa.notice.includes('Save network'), JSON.stringify(sa && sa.notice));
     measurements.single_file_bytes = fs.statSync(path.join(webDir, 'apportion-single.html')).size;
+    check('single file: under 3 MB, the font included', measurements.single_file_bytes < 3 * 1024 * 1024,
+          String(measurements.single_file_bytes));
     await b.close();
   }
 } finally {

@@ -8,6 +8,7 @@ import os
 import shutil
 import subprocess
 import sys
+import xml.etree.ElementTree as ET
 
 ap = argparse.ArgumentParser()
 ap.add_argument("--apportion", required=True)
@@ -76,6 +77,15 @@ check("fair --progress reports on standard error and leaves the result alone",
       shown.returncode == 0 and shown.stdout == plain.stdout and "apportion fair: solved in" in shown.stderr and
       "LPs" in shown.stderr, shown.stderr)
 check("fair CSV tables are written", all(os.path.exists(prefix + s) for s in [".demands.csv", ".arcs.csv", ".paths.csv"]))
+# The picture for a report: well-formed SVG (read back with Python's own XML parser), light,
+# with the rule, the totals and the caution.
+r = run("feasible", demos[0], "--svg", prefix + ".svg")
+svg_root = ET.parse(prefix + ".svg").getroot()
+svg_text = " ".join(t.text or "" for t in svg_root.iter("{http://www.w3.org/2000/svg}text"))
+check("feasible --svg writes the picture for a report",
+      r.returncode == 0 and svg_root.find("{http://www.w3.org/2000/svg}rect").get("fill") == "#ffffff" and
+      "Rule: can every demand be met?" in svg_text and "throughput" in svg_text and "planning aid" in svg_text,
+      svg_text[:300])
 check("fair --hop-limit 0 is a usage error", run("fair", demos[0], "--hop-limit", "0").returncode == 2)
 check("tradeoff --epsilon 2 is a usage error", run("tradeoff", demos[0], "--epsilon", "2").returncode == 2)
 

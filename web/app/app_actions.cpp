@@ -78,6 +78,7 @@ std::string state_json(const char* event) {
   s["side_width"] = a.side_width;
   s["chart_ticks"] = a.chart_ticks;
   s["splitter"] = a.splitter;
+  s["tabs_y"] = a.tabs_y;
   s["font_px"] = ImGui::GetIO().Fonts->Fonts.empty() ? 0.0f : ImGui::GetIO().Fonts->Fonts[0]->FontSize;
   s["labels_drawn"] = a.view.drawn_labels;
   s["window"] = {ImGui::GetIO().DisplaySize.x, ImGui::GetIO().DisplaySize.y};

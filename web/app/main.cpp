@@ -182,6 +182,7 @@ void frame() {
   a.side_width = std::clamp(a.side_width, 260.0f, side_max);
   ImGui::BeginChild("side", ImVec2(a.side_width, 0), true);
   draw_notices();
+  a.tabs_y = ImGui::GetCursorScreenPos().y;
   if (ImGui::BeginTabBar("side-tabs")) {
     const int want = a.right_tab;
     a.right_tab = -1;

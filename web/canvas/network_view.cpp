@@ -253,23 +253,47 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     if (must_show(x) != must_show(y)) return must_show(x);
     return degree[x] > degree[y];
   });
-  // Cells of the canvas a label already covers.
+  // Cells of the canvas a label or a node already covers. Each label tries the right of its
+  // node, then the left, above and below, and is left out when all four are taken.
   const float cell = 6 * ui_scale;
   const int cols = static_cast<int>(avail.x / cell) + 2, rows = static_cast<int>(avail.y / cell) + 2;
   std::vector<char> taken(static_cast<std::size_t>(cols) * rows, 0);
+  auto cells = [&](ImVec2 p, ImVec2 size, int& x0, int& y0, int& x1, int& y1) {
+    x0 = std::max(0, static_cast<int>((p.x - origin.x) / cell)), y0 = std::max(0, static_cast<int>((p.y - origin.y) / cell));
+    x1 = std::min(cols - 1, static_cast<int>((p.x + size.x - origin.x) / cell));
+    y1 = std::min(rows - 1, static_cast<int>((p.y + size.y - origin.y) / cell));
+  };
+  auto is_free = [&](ImVec2 p, ImVec2 size) {
+    int x0, y0, x1, y1;
+    cells(p, size, x0, y0, x1, y1);
+    for (int y = y0; y <= y1; ++y)
+      for (int x = x0; x <= x1; ++x)
+        if (taken[static_cast<std::size_t>(y) * cols + x]) return false;
+    return true;
+  };
+  auto take = [&](ImVec2 p, ImVec2 size) {
+    int x0, y0, x1, y1;
+    cells(p, size, x0, y0, x1, y1);
+    for (int y = y0; y <= y1; ++y)
+      for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = 1;
+  };
+  for (int v : by_importance) {  // the discs first: no label covers a node
+    const ImVec2 c = at(v);
+    take(ImVec2(c.x - node_r + 1, c.y - node_r + 1), ImVec2(2 * node_r - 2, 2 * node_r - 2));
+  }
   for (int v : by_importance) {
     const ImVec2 c = at(v);
     const std::string& label = net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
-    const ImVec2 pos(c.x + 9 * ui_scale, c.y - 8 * ui_scale), size = ImGui::CalcTextSize(label.c_str());
-    const int x0 = std::max(0, static_cast<int>((pos.x - origin.x) / cell)), y0 = std::max(0, static_cast<int>((pos.y - origin.y) / cell));
-    const int x1 = std::min(cols - 1, static_cast<int>((pos.x + size.x - origin.x) / cell));
-    const int y1 = std::min(rows - 1, static_cast<int>((pos.y + size.y - origin.y) / cell));
-    bool free = true;
-    for (int y = y0; y <= y1 && free; ++y)
-      for (int x = x0; x <= x1 && free; ++x) free = !taken[static_cast<std::size_t>(y) * cols + x];
-    if (!free && !must_show(v)) continue;
-    for (int y = y0; y <= y1; ++y)
-      for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = 1;
+    const ImVec2 size = ImGui::CalcTextSize(label.c_str());
+    const float gap = node_r + 3 * ui_scale;
+    const ImVec2 places[] = {ImVec2(c.x + gap, c.y - size.y / 2), ImVec2(c.x - gap - size.x, c.y - size.y / 2),
+                             ImVec2(c.x - size.x / 2, c.y - gap - size.y), ImVec2(c.x - size.x / 2, c.y + gap)};
+    int place = -1;
+    for (int i = 0; i < 4 && place < 0; ++i)
+      if (is_free(places[i], size)) place = i;
+    if (place < 0 && !must_show(v)) continue;
+    const ImVec2 pos = places[std::max(0, place)];
+    take(pos, size);
     // A halo in the background's colour keeps a label readable where it crosses an arc.
     const float o = std::max(1.0f, ui_scale);
     for (const ImVec2 d : {ImVec2(-o, 0), ImVec2(o, 0), ImVec2(0, -o), ImVec2(0, o), ImVec2(-o, -o), ImVec2(o, o),
@@ -391,13 +415,15 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
     auto name = [&](int v) { return net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label; };
     ImGui::Text("%s %s %s  (arc %s%s)", name(arc.from).c_str(), arc.shared_two_way ? "\u2194" : "\u2192",
                 name(arc.to).c_str(), arc.id.c_str(), arc.shared_two_way ? ", shared two-way" : "");
-    ImGui::Text("capacity %.6g %s%s", arc.capacity, net.units.capacity.c_str(), arc.enabled ? "" : " (disabled)");
+    const char* unit = net.units.capacity.c_str();
+    ImGui::Text("capacity %.6g %s%s", arc.capacity, unit, arc.enabled ? "" : " (out of service)");
     if (flow && hover_arc < static_cast<int>(flow->arcs.size())) {
       const ArcLoad& l = flow->arcs[hover_arc];
-      ImGui::Text("load %.6g (%.1f %%), shadow price %.4g%s", l.load, 100 * l.utilisation, l.shadow_price,
+      ImGui::Text("load %.6g %s (%.1f %%), shadow price %.4g%s", l.load, unit, 100 * l.utilisation, l.shadow_price,
                   l.tier ? (", binds in tier " + std::to_string(l.tier)).c_str() : "");
       for (auto [k, f] : l.per_demand)
-        ImGui::BulletText("%s: %.6g", (net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label).c_str(), f);
+        ImGui::BulletText("%s: %.6g %s", (net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label).c_str(),
+                          f, unit);
     }
     ImGui::EndTooltip();
   }

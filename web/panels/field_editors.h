@@ -1,7 +1,8 @@
 // Text and number fields that edit the document once, when the user finishes (Enter or
 // leaving the field), so that one change is one undo step and a half-typed number never
 // reaches the solver. ImGui writes a field's value on every keystroke; the value typed so
-// far is kept here until the field is left.
+// far is kept here until the field is left. A visible label comes before its field, the
+// fields of a panel lined up in one column.
 #pragma once
 
 #include <imgui.h>
@@ -9,7 +10,23 @@
 #include <cstdio>
 #include <string>
 
+#include "app/appearance.h"
+
 namespace apportion::web {
+
+// Draws the visible part of `label` (before any "##") and moves to the field's column;
+// returns the ImGui label for the field itself, which keeps the full label as its id.
+inline std::string label_before(const char* label, float column_css_px = 110) {
+  const std::string full = label;
+  const std::string shown = full.substr(0, full.find("##"));
+  if (shown.empty()) return full;
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted(shown.c_str());
+  const float column = column_css_px * ui_scale();
+  if (ImGui::GetItemRectSize().x + ImGui::GetStyle().ItemSpacing.x < column) ImGui::SameLine(column);
+  else ImGui::SameLine();
+  return "##" + full;
+}
 
 struct PendingField {
   ImGuiID id = 0;
@@ -22,7 +39,9 @@ inline PendingField& pending_field() {
 }
 
 // True with `out` set when the user finished editing with a new value.
-inline bool edit_number(const char* label, double current, double& out, const char* format = "%.6g") {
+inline bool edit_number(const char* visible_label, double current, double& out, const char* format = "%.6g") {
+  const std::string field = label_before(visible_label);
+  const char* label = field.c_str();
   PendingField& p = pending_field();
   const ImGuiID id = ImGui::GetID(label);
   double v = p.id == id ? p.number : current;
@@ -36,7 +55,9 @@ inline bool edit_number(const char* label, double current, double& out, const ch
   return false;
 }
 
-inline bool edit_text(const char* label, const std::string& current, std::string& out) {
+inline bool edit_text(const char* visible_label, const std::string& current, std::string& out) {
+  const std::string field = label_before(visible_label);
+  const char* label = field.c_str();
   PendingField& p = pending_field();
   const ImGuiID id = ImGui::GetID(label);
   char buf[512];

@@ -42,7 +42,7 @@ bool edit_id(const Items& items, const std::string& current, std::string& out) {
 void network_inspector() {
   App& a = app();
   ImGui::TextUnformatted("Network");
-  ImGui::PushItemWidth(220);
+  ImGui::PushItemWidth(220 * ui_scale());
   std::string s;
   if (edit_text("name", a.doc.name, s)) action("set network - name " + s);
   if (edit_text("capacity unit", a.doc.units.capacity, s)) action("set network - capacity-unit " + s);
@@ -131,7 +131,7 @@ void draw_inspector() {
                        "demand in the Demands tab.");
     return;
   }
-  ImGui::PushItemWidth(220);
+  ImGui::PushItemWidth(220 * ui_scale());
   if (count == 1) {
     if (!sel.nodes.empty()) node_inspector(sel.nodes[0]);
     if (!sel.arcs.empty()) arc_inspector(sel.arcs[0]);

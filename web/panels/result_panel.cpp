@@ -10,6 +10,7 @@
 
 #include "app/app_state.h"
 #include "app/appearance.h"
+#include "panels/field_editors.h"
 #include "panels/panels.h"
 #include "panels/table_rows.h"
 #include "apportion/results/zero_share_reason.h"
@@ -127,8 +128,9 @@ void draw_result_panel() {
     preview = "demand " + net.demands[a.view.filter_demand].id;
   else if (a.view.filter_tier > 0)
     preview = "tier " + std::to_string(a.view.filter_tier);
+  const std::string show_label = label_before("Show on the canvas", 0);
   ImGui::SetNextItemWidth(220 * ui_scale());
-  if (ImGui::BeginCombo("show on the canvas", preview.c_str())) {
+  if (ImGui::BeginCombo(show_label.c_str(), preview.c_str())) {
     if (ImGui::Selectable("all demands", a.view.filter_demand < 0 && a.view.filter_tier == 0))
       a.view.filter_demand = -1, a.view.filter_tier = 0;
     for (const Tier& t : r.tiers) {
@@ -145,9 +147,11 @@ void draw_result_panel() {
   const std::vector<int>& rows = share_rows();
   ImGui::SameLine();
   ImGui::TextDisabled("%zu of %zu demands; click a header to sort", rows.size(), r.demands.size());
+  // Every column as wide as its content (nothing clipped), the table scrolling sideways when
+  // they do not fit, with the demand's column kept in view.
   const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_Resizable |
-                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_SizingFixedFit | ImGuiTableFlags_Sortable |
-                                ImGuiTableFlags_SortTristate;
+                                ImGuiTableFlags_ScrollY | ImGuiTableFlags_ScrollX | ImGuiTableFlags_SizingFixedFit |
+                                ImGuiTableFlags_Sortable | ImGuiTableFlags_SortTristate;
   if (!ImGui::BeginTable("shares", have_change ? 7 : 6, flags)) return;
   ImGui::TableSetupScrollFreeze(1, 1);
   const std::string share_header = net.units.capacity.empty() ? "Share" : "Share (" + net.units.capacity + ")";
@@ -156,7 +160,7 @@ void draw_result_panel() {
   ImGui::TableSetupColumn(share_header.c_str());
   ImGui::TableSetupColumn("% of amount");
   ImGui::TableSetupColumn("Tier");
-  ImGui::TableSetupColumn("Bound by", ImGuiTableColumnFlags_WidthStretch);
+  ImGui::TableSetupColumn("Bound by");
   if (have_change) ImGui::TableSetupColumn("Change");
   ImGui::TableHeadersRow();
   take_sort_specs(a.share_view);

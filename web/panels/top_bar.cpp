@@ -5,6 +5,7 @@
 #include <imgui.h>
 
 #include <algorithm>
+#include <cfloat>
 #include <cctype>
 #include <cstdio>
 #include <cstring>
@@ -14,6 +15,7 @@
 #include "app/app_state.h"
 #include "app/appearance.h"
 #include "browser/browser_bridge.h"
+#include "panels/field_editors.h"
 #include "panels/panels.h"
 
 namespace apportion::web {
@@ -215,16 +217,20 @@ void matrix_dialog() {
     if (m.amounts == 0) {
       ImGui::TextWrapped("Pair (i, j) asks total x m_i m_j / (sum over the pairs of m_p m_q), node masses m drawn "
                          "from [1, 10) with the seed. Total 0: a third of the total capacity.");
+      const std::string field_1 = label_before(("total" + unit).c_str(), 170);
       ImGui::SetNextItemWidth(160 * ui_scale());
-      ImGui::InputDouble(("total" + unit).c_str(), &m.total, 0, 0, "%.6g");
+      ImGui::InputDouble(field_1.c_str(), &m.total, 0, 0, "%.6g");
+      const std::string field_2 = label_before("seed", 170);
       ImGui::SetNextItemWidth(160 * ui_scale());
-      ImGui::InputInt("seed", &m.seed);
+      ImGui::InputInt(field_2.c_str(), &m.seed);
     } else if (m.amounts == 1) {
+      const std::string field_3 = label_before(("amount of each pair" + unit).c_str(), 170);
       ImGui::SetNextItemWidth(160 * ui_scale());
-      ImGui::InputDouble(("amount of each pair" + unit).c_str(), &m.amount, 0, 0, "%.6g");
+      ImGui::InputDouble(field_3.c_str(), &m.amount, 0, 0, "%.6g");
     }
+    const std::string field_4 = label_before("weight of each", 170);
     ImGui::SetNextItemWidth(160 * ui_scale());
-    ImGui::InputDouble("weight of each", &m.weight, 0, 0, "%.6g");
+    ImGui::InputDouble(field_4.c_str(), &m.weight, 0, 0, "%.6g");
   }
   ImGui::Checkbox("replace the existing demands", &m.replace);
   if (!m.error.empty()) {
@@ -257,8 +263,9 @@ void graphml_dialog() {
   }
   ImGui::TextWrapped("%s: how should its links' capacities be read?", g.name.c_str());
   std::string current = g.attribute >= 0 ? g.attributes[g.attribute].name : "(none: every link gets the default)";
+  const std::string field_5 = label_before("capacity from", 210);
   ImGui::SetNextItemWidth(260 * ui_scale());
-  if (ImGui::BeginCombo("capacity from", current.c_str())) {
+  if (ImGui::BeginCombo(field_5.c_str(), current.c_str())) {
     if (ImGui::Selectable("(none: every link gets the default)", g.attribute < 0)) g.attribute = -1;
     for (int i = 0; i < static_cast<int>(g.attributes.size()); ++i) {
       char label[300];
@@ -269,23 +276,28 @@ void graphml_dialog() {
   }
   if (g.attribute >= 0) {
     const char* units[] = {"already in the network's unit", "bit/s", "kbit/s", "Mbit/s", "Gbit/s", "Tbit/s"};
+    const std::string field_6 = label_before("its values are in", 210);
     ImGui::SetNextItemWidth(260 * ui_scale());
-    ImGui::Combo("its values are in", &g.value_unit, units, IM_ARRAYSIZE(units));
+    ImGui::Combo(field_6.c_str(), &g.value_unit, units, IM_ARRAYSIZE(units));
   }
   char unit[64];
   std::snprintf(unit, sizeof unit, "%s", g.unit.c_str());
+  const std::string field_7 = label_before("network's capacity unit", 210);
   ImGui::SetNextItemWidth(260 * ui_scale());
-  if (ImGui::InputText("network's capacity unit", unit, sizeof unit)) g.unit = unit;
+  if (ImGui::InputText(field_7.c_str(), unit, sizeof unit)) g.unit = unit;
+  const std::string field_8 = label_before("capacity of links without it", 210);
   ImGui::SetNextItemWidth(260 * ui_scale());
-  ImGui::InputDouble("capacity of links without it", &g.default_capacity, 0, 0, "%.6g");
+  ImGui::InputDouble(field_8.c_str(), &g.default_capacity, 0, 0, "%.6g");
   const char* lengths[] = {"not used", "as each arc's cost (km)", "as each arc's transit time"};
+  const std::string field_9 = label_before("great-circle length", 210);
   ImGui::SetNextItemWidth(260 * ui_scale());
-  ImGui::Combo("great-circle length", &g.length_as, lengths, IM_ARRAYSIZE(lengths));
+  ImGui::Combo(field_9.c_str(), &g.length_as, lengths, IM_ARRAYSIZE(lengths));
   if (ImGui::IsItemHovered())
     ImGui::SetTooltip("From the nodes' Longitude and Latitude; links with an end without them get none.");
   if (g.length_as == 2) {
+    const std::string field_10 = label_before("speed (km per time unit)", 210);
     ImGui::SetNextItemWidth(260 * ui_scale());
-    ImGui::InputDouble("speed (km per time unit)", &g.speed, 0, 0, "%.6g");
+    ImGui::InputDouble(field_10.c_str(), &g.speed, 0, 0, "%.6g");
   }
   ImGui::RadioButton("an undirected link is one arc shared by both directions", &g.undirected, 0);
   ImGui::RadioButton("an undirected link is two arcs, one per direction", &g.undirected, 1);
@@ -431,6 +443,12 @@ void draw_toolbar() {
 
 void draw_notices() {
   App& a = app();
+  if (a.open_errors.empty() && !a.other_tab_saved && a.notice.empty() && a.diagnostics.items.empty()) return;
+  // Wrapped to the panel, in a box that grows with them up to a third of the window and then
+  // scrolls, so that a long list never pushes the tabs out of sight.
+  ImGui::SetNextWindowSizeConstraints(ImVec2(0, 0), ImVec2(FLT_MAX, ImGui::GetIO().DisplaySize.y / 3));
+  ImGui::BeginChild("notices", ImVec2(0, 0), ImGuiChildFlags_AutoResizeY);
+  ImGui::PushTextWrapPos(0);
   if (!a.open_errors.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, palette().error_text);
     ImGui::TextUnformatted("The file was not opened; the current network is unchanged:");
@@ -443,12 +461,10 @@ void draw_notices() {
     ImGui::TextWrapped("Another tab autosaved a network in this browser. Both tabs' work is kept: this tab's next "
                        "edit is saved as a new version, and Recover... lists the other tab's.");
     ImGui::PopStyleColor();
-    ImGui::SameLine();
     if (ImGui::SmallButton("OK##othertab")) a.other_tab_saved = false;
   }
   if (!a.notice.empty()) {
     ImGui::TextWrapped("%s", a.notice.c_str());
-    ImGui::SameLine();
     if (ImGui::SmallButton("OK##notice")) a.notice.clear();
   }
   int shown = 0;
@@ -460,11 +476,16 @@ void draw_notices() {
     ++shown;
     const bool error = d.severity == Severity::kError;
     ImGui::PushStyleColor(ImGuiCol_Text, error ? palette().error_text : palette().warning_text);
-    const std::string text = d.to_string() + "##diag" + std::to_string(shown);
-    if (ImGui::Selectable(text.c_str())) select_item(d.item_kind, d.item_id);
+    ImGui::TextWrapped("%s", d.to_string().c_str());
     ImGui::PopStyleColor();
-    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Click to select %s %s", d.item_kind.c_str(), d.item_id.c_str());
+    if (ImGui::IsItemHovered()) {
+      ImGui::SetMouseCursor(ImGuiMouseCursor_Hand);
+      ImGui::SetTooltip("Click to select %s %s", d.item_kind.c_str(), d.item_id.c_str());
+    }
+    if (ImGui::IsItemClicked()) select_item(d.item_kind, d.item_id);
   }
+  ImGui::PopTextWrapPos();
+  ImGui::EndChild();
 }
 
 }  // namespace apportion::web
