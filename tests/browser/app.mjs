@@ -878,6 +878,22 @@ try {
     check('toolbar: "Hop limit" before its field', hops && hopsField && hops.x1 <= hopsField.x0);
     check('DPR 1: the font is rasterised at 15 px (DejaVu Sans, 100 %)', st.font_px === 15, String(st.font_px));
     check('dark theme by default', st.theme === 'dark');
+    // Every column of the shares table sorts. By hand from the demo's result (shares 40, 30,
+    // 30, 50; tiers 3, 2, 1, 4) and its labels; ties keep the file's order.
+    const sorted = async (column, direction) => {
+      const t = b.next('table');
+      await b.act(`view shares sort ${column} ${direction}`);
+      return (await t).first;
+    };
+    const byShare = await sorted(1, 'desc'), byLabel = await sorted(0, 'asc'), byTier = await sorted(3, 'asc');
+    const byEnds = await sorted(5, 'desc');
+    await sorted(0, 'none');
+    check('shares table sorts by share, by label, by tier and by its ends',
+          JSON.stringify(byShare) === JSON.stringify(['d-west', 'd-north', 'd-east', 'd-south']) &&
+          JSON.stringify(byLabel) === JSON.stringify(['d-north', 'd-south', 'd-east', 'd-west']) &&
+          JSON.stringify(byTier) === JSON.stringify(['d-south', 'd-east', 'd-north', 'd-west']) &&
+          JSON.stringify(byEnds) === JSON.stringify(['d-west', 'd-east', 'd-south', 'd-north']),
+          JSON.stringify([byShare, byLabel, byTier, byEnds]));
     await b.page.screenshot({ path: path.join(artefacts, 'display-dark-dpr1.png') });
     const darkShot = readPng(await b.page.screenshot());
     let pos = await b.positions();
@@ -898,6 +914,13 @@ try {
     check('light theme: the canvas background is light, the dark one dark (screenshot pixels)',
           lightLuma > 0.9 && darkLuma < 0.2, `light ${lightLuma.toFixed(3)}, dark ${darkLuma.toFixed(3)}`);
     await b.page.screenshot({ path: path.join(artefacts, 'display-light-130-dpr1.png') });
+    // Labels: inside the canvas, never over each other, and most nodes keep theirs.
+    const boxes = pos.labels.map(([, x0, y0, x1, y1]) => ({ x0, y0, x1, y1 }));
+    const overlap = (p, q) => p.x0 < q.x1 - 0.5 && q.x0 < p.x1 - 0.5 && p.y0 < q.y1 - 0.5 && q.y0 < p.y1 - 0.5;
+    check('130 %: node labels inside the canvas, none over another, at least 8 of 9 shown',
+          pos.labels.length >= 8 && boxes.every((q) => q.x0 >= lx && q.y0 >= ly && q.x1 <= lx + lw && q.y1 <= ly + lh) &&
+          boxes.every((p, i) => boxes.every((q, j) => i === j || !overlap(p, q))),
+          JSON.stringify(pos.labels.map((l) => l[0])));
     const wrappedRows = new Set(st.toolbar.map((t) => Math.round(t[2]))).size;
     check('130 % at 1,024 px: still no toolbar item outside the window',
           Math.max(...st.toolbar.map((t) => t[3])) <= st.window[0], `${wrappedRows} rows`);

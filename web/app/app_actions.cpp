@@ -75,12 +75,11 @@ std::string state_json(const char* event) {
   s["selection"] = sel;
   s["theme"] = appearance().light ? "light" : "dark";
   s["text_size"] = appearance().scale_percent;
-  s["side_width"] = a.side_width;
+  s["side_width"] = a.side_width_used;
   s["chart_ticks"] = a.chart_ticks;
   s["splitter"] = a.splitter;
   s["tabs_y"] = a.tabs_y;
   s["font_px"] = ImGui::GetIO().Fonts->Fonts.empty() ? 0.0f : ImGui::GetIO().Fonts->Fonts[0]->FontSize;
-  s["labels_drawn"] = a.view.drawn_labels;
   s["window"] = {ImGui::GetIO().DisplaySize.x, ImGui::GetIO().DisplaySize.y};
   nlohmann::json bar = nlohmann::json::array();
   for (const auto& [name, r] : a.toolbar_items) bar.push_back({name, r[0], r[1], r[2], r[3]});

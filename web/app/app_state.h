@@ -121,7 +121,8 @@ struct App {
   int png_requested = 0;        // frames until the canvas PNG is taken (0: none asked for)
   float dpr = 1.0f;
   float applied_scale = 0;      // the UI scale the fonts and style were made for
-  float side_width = 560;       // of the side panel, in CSS pixels (dragged, remembered)
+  float side_width = 0;         // of the side panel, in CSS pixels (dragged, remembered); 0: automatic
+  float side_width_used = 0;    // as drawn last frame
   float tabs_y = 0;             // where the side panel's tabs start, below the notices (test hook)
   std::array<float, 4> splitter{};  // the side panel's draggable edge, x0 y0 x1 y1 (test hook)
   // Where the toolbar's items were drawn last frame (for the test hook): name, then x0 y0 x1 y1.

@@ -128,12 +128,15 @@ void report_positions() {
   nlohmann::json out_of_service = nlohmann::json::array();  // arcs the last frame drew dashed
   for (int e : a.view.drawn_out_of_service)
     if (e >= 0 && e < a.doc.arc_count()) out_of_service.push_back(a.doc.arcs[e].id);
+  nlohmann::json labels = nlohmann::json::array();  // node id and the box its label was drawn in
+  for (const auto& l : a.view.drawn_labels)
+    if (l[0] >= 0 && l[0] < a.doc.node_count()) labels.push_back({a.doc.nodes[static_cast<int>(l[0])].id, l[1], l[2], l[3], l[4]});
   nlohmann::json s = {{"nodes", nodes},
                       {"canvas", {a.view.canvas_x, a.view.canvas_y, a.view.canvas_w, a.view.canvas_h}},
                       {"canvas_ms", a.view.frame_ms},
                       {"out_of_service", out_of_service},
                       {"cut_arcs", a.view.drawn_cut_arcs},
-                      {"labels", a.view.drawn_labels},
+                      {"labels", labels},
                       {"origin", a.view.drawn_origin >= 0 && a.view.drawn_origin < a.doc.node_count()
                                      ? a.doc.nodes[a.view.drawn_origin].id : ""},
                       {"destination", a.view.drawn_destination >= 0 && a.view.drawn_destination < a.doc.node_count()
@@ -178,9 +181,12 @@ void frame() {
   ImGui::Separator();
   // Messages go in the side panel, so that the canvas never moves under the mouse.
   // The side panel, as wide as the user dragged its edge (remembered), leaving the canvas room.
+  // Until the user drags it, the panel takes 42 % of the window, within 320-560 px.
   const float side_max = std::max(260.0f, io.DisplaySize.x - 240.0f);
-  a.side_width = std::clamp(a.side_width, 260.0f, side_max);
-  ImGui::BeginChild("side", ImVec2(a.side_width, 0), true);
+  if (a.side_width > 0) a.side_width = std::clamp(a.side_width, 260.0f, side_max);
+  a.side_width_used =
+      a.side_width > 0 ? a.side_width : std::clamp(0.42f * io.DisplaySize.x, std::min(320.0f, side_max), std::min(560.0f, side_max));
+  ImGui::BeginChild("side", ImVec2(a.side_width_used, 0), true);
   draw_notices();
   a.tabs_y = ImGui::GetCursorScreenPos().y;
   if (ImGui::BeginTabBar("side-tabs")) {
@@ -201,7 +207,8 @@ void frame() {
   const float grip = 8.0f * ui_scale();
   ImGui::InvisibleButton("side-splitter", ImVec2(grip, std::max(1.0f, ImGui::GetContentRegionAvail().y)));
   if (ImGui::IsItemHovered() || ImGui::IsItemActive()) ImGui::SetMouseCursor(ImGuiMouseCursor_ResizeEW);
-  if (ImGui::IsItemActive()) a.side_width = std::clamp(a.side_width + io.MouseDelta.x, 260.0f, side_max);
+  if (ImGui::IsItemActive() && io.MouseDelta.x != 0)
+    a.side_width = std::clamp(a.side_width_used + io.MouseDelta.x, 260.0f, side_max);
   if (ImGui::IsItemDeactivated()) remember_side_width();
   a.splitter = {ImGui::GetItemRectMin().x, ImGui::GetItemRectMin().y, ImGui::GetItemRectMax().x, ImGui::GetItemRectMax().y};
   {

@@ -46,7 +46,8 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   if (view.fitted && untouched && (std::abs(avail.x - view.fitted_w) > 0.5f || std::abs(avail.y - view.fitted_h) > 0.5f))
     view.fitted = false;
   if (!view.fitted) {
-    view.layout = fit_layout(net, avail.x, avail.y, 40 * ui_scale, 120 * ui_scale);
+    // Room on the right for the labels that go there; a label with no room goes left.
+    view.layout = fit_layout(net, avail.x, avail.y, 30 * ui_scale, 60 * ui_scale);
     view.fitted_w = avail.x, view.fitted_h = avail.y;
     view.pan_x = view.pan_y = 0;
     view.zoom = 1;
@@ -144,7 +145,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   const float time = static_cast<float>(ImGui::GetTime());
   view.drawn_out_of_service.clear();
   view.drawn_origin = view.drawn_destination = -1;
-  view.drawn_labels = 0;
+  view.drawn_labels.clear();
   int hover_arc = -1;
   float best = 8 * ui_scale;
   for (int a = 0; a < net.arc_count(); ++a) {
@@ -257,29 +258,35 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   // node, then the left, above and below, and is left out when all four are taken.
   const float cell = 6 * ui_scale;
   const int cols = static_cast<int>(avail.x / cell) + 2, rows = static_cast<int>(avail.y / cell) + 2;
-  std::vector<char> taken(static_cast<std::size_t>(cols) * rows, 0);
+  // Per cell: -1 free, v >= 0 under node v's disc, -2 under a label. A label may touch its
+  // own node's cells.
+  std::vector<int> taken(static_cast<std::size_t>(cols) * rows, -1);
   auto cells = [&](ImVec2 p, ImVec2 size, int& x0, int& y0, int& x1, int& y1) {
     x0 = std::max(0, static_cast<int>((p.x - origin.x) / cell)), y0 = std::max(0, static_cast<int>((p.y - origin.y) / cell));
     x1 = std::min(cols - 1, static_cast<int>((p.x + size.x - origin.x) / cell));
     y1 = std::min(rows - 1, static_cast<int>((p.y + size.y - origin.y) / cell));
   };
-  auto is_free = [&](ImVec2 p, ImVec2 size) {
+  auto is_free = [&](ImVec2 p, ImVec2 size, int v) {
+    if (p.x < origin.x || p.y < origin.y || p.x + size.x > origin.x + avail.x || p.y + size.y > origin.y + avail.y)
+      return false;  // a label cut by the canvas's edge is no label
     int x0, y0, x1, y1;
     cells(p, size, x0, y0, x1, y1);
     for (int y = y0; y <= y1; ++y)
-      for (int x = x0; x <= x1; ++x)
-        if (taken[static_cast<std::size_t>(y) * cols + x]) return false;
+      for (int x = x0; x <= x1; ++x) {
+        const int t = taken[static_cast<std::size_t>(y) * cols + x];
+        if (t != -1 && t != v) return false;
+      }
     return true;
   };
-  auto take = [&](ImVec2 p, ImVec2 size) {
+  auto take = [&](ImVec2 p, ImVec2 size, int owner) {
     int x0, y0, x1, y1;
     cells(p, size, x0, y0, x1, y1);
     for (int y = y0; y <= y1; ++y)
-      for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = 1;
+      for (int x = x0; x <= x1; ++x) taken[static_cast<std::size_t>(y) * cols + x] = owner;
   };
   for (int v : by_importance) {  // the discs first: no label covers a node
     const ImVec2 c = at(v);
-    take(ImVec2(c.x - node_r + 1, c.y - node_r + 1), ImVec2(2 * node_r - 2, 2 * node_r - 2));
+    take(ImVec2(c.x - node_r + 1, c.y - node_r + 1), ImVec2(2 * node_r - 2, 2 * node_r - 2), v);
   }
   for (int v : by_importance) {
     const ImVec2 c = at(v);
@@ -290,17 +297,17 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
                              ImVec2(c.x - size.x / 2, c.y - gap - size.y), ImVec2(c.x - size.x / 2, c.y + gap)};
     int place = -1;
     for (int i = 0; i < 4 && place < 0; ++i)
-      if (is_free(places[i], size)) place = i;
+      if (is_free(places[i], size, v)) place = i;
     if (place < 0 && !must_show(v)) continue;
     const ImVec2 pos = places[std::max(0, place)];
-    take(pos, size);
+    take(pos, size, -2);
     // A halo in the background's colour keeps a label readable where it crosses an arc.
     const float o = std::max(1.0f, ui_scale);
     for (const ImVec2 d : {ImVec2(-o, 0), ImVec2(o, 0), ImVec2(0, -o), ImVec2(0, o), ImVec2(-o, -o), ImVec2(o, o),
                            ImVec2(-o, o), ImVec2(o, -o)})
       dl->AddText(ImVec2(pos.x + d.x, pos.y + d.y), colours.halo, label.c_str());
     dl->AddText(pos, kInk, label.c_str());
-    ++view.drawn_labels;
+    view.drawn_labels.push_back({static_cast<float>(v), pos.x, pos.y, pos.x + size.x, pos.y + size.y});
   }
 
   // The mouse: a click, a move of the selected nodes, a selection box, or a new link.

@@ -15,6 +15,7 @@
 // demand from the first node clicked to the second.
 #pragma once
 
+#include <array>
 #include <vector>
 
 #include "apportion/model/network.h"
@@ -48,7 +49,8 @@ struct ViewState {
   // the filtered demand's origin and destination.
   std::vector<int> drawn_out_of_service;
   int drawn_origin = -1, drawn_destination = -1;
-  int drawn_labels = 0;        // node labels drawn (the others would overlap)
+  // Node labels drawn (the others would overlap): node index, then the box x0 y0 x1 y1.
+  std::vector<std::array<float, 5>> drawn_labels;
   int drawn_cut_arcs = 0;      // feasibility: arcs of the overloaded cut outlined
 };
 

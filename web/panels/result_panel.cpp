@@ -71,11 +71,11 @@ const std::vector<int>& share_rows() {
         auto change = [](double c) { return std::isnan(c) ? -1e300 : c; };
         switch (column) {
           case 0: return demand_name(net, x) < demand_name(net, y);
-          case 1: return ends_name(net, x) < ends_name(net, y);
-          case 2: return p.share < q.share;
-          case 3: return p.percent_of_amount < q.percent_of_amount;
-          case 4: return p.tier < q.tier;
-          case 5: return bound_text(net, r, x) < bound_text(net, r, y);
+          case 1: return p.share < q.share;
+          case 2: return p.percent_of_amount < q.percent_of_amount;
+          case 3: return p.tier < q.tier;
+          case 4: return bound_text(net, r, x) < bound_text(net, r, y);
+          case 5: return ends_name(net, x) < ends_name(net, y);
           case 6: return change(share_change(x)) < change(share_change(y));
         }
         return false;
@@ -113,13 +113,17 @@ void draw_result_panel() {
                   unit);
   }
   ImGui::Text("Throughput %.6g %s", r.throughput, unit);
-  ImGui::Text("Minimum normalised share %.6g, Jain's index %.4f", r.min_normalised_share, r.jain_index);
+  // One figure to a line: ImGui may wrap at a decimal point.
+  ImGui::Text("Minimum normalised share %.6g", r.min_normalised_share);
+  ImGui::Text("Jain's index %.4f", r.jain_index);
   if (r.lambda >= 0) ImGui::Text("Max concurrent flow lambda %.6g", r.lambda);
   if (r.price_of_fairness >= 0)
     ImGui::Text("Price of fairness %.2f%% of the maximum throughput %.6g %s", 100 * r.price_of_fairness,
                 r.max_throughput, unit);
-  ImGui::Text("Independent check: %s (largest capacity excess %.2g of the arc's capacity)", r.check.ok ? "passed" : "FAILED",
-              r.check.max_capacity_violation);
+  ImGui::Text("Independent check: %s", r.check.ok ? "passed" : "FAILED");
+  if (ImGui::IsItemHovered())
+    ImGui::SetTooltip("Largest capacity excess %.2g of the arc's capacity; largest share error %.2g", r.check.max_capacity_violation,
+                      r.check.max_share_error);
   ImGui::PopTextWrapPos();
 
   // Filter: everything, one demand, or one tier.
@@ -155,12 +159,13 @@ void draw_result_panel() {
   if (!ImGui::BeginTable("shares", have_change ? 7 : 6, flags)) return;
   ImGui::TableSetupScrollFreeze(1, 1);
   const std::string share_header = net.units.capacity.empty() ? "Share" : "Share (" + net.units.capacity + ")";
+  // The numbers first, the ends (also in the demand's tooltip) last.
   ImGui::TableSetupColumn("Demand");
-  ImGui::TableSetupColumn("From \u2192 to");
   ImGui::TableSetupColumn(share_header.c_str());
   ImGui::TableSetupColumn("% of amount");
   ImGui::TableSetupColumn("Tier");
   ImGui::TableSetupColumn("Bound by");
+  ImGui::TableSetupColumn("From \u2192 to");
   if (have_change) ImGui::TableSetupColumn("Change");
   ImGui::TableHeadersRow();
   take_sort_specs(a.share_view);
@@ -191,8 +196,6 @@ void draw_result_panel() {
         ImGui::TextDisabled("%s", dm.id.c_str());
       }
       ImGui::TableNextColumn();
-      ImGui::TextUnformatted(ends_name(net, k).c_str());
-      ImGui::TableNextColumn();
       ImGui::Text("%.6g", d.share);
       ImGui::TableNextColumn();
       if (d.percent_of_amount >= 0) ImGui::Text("%.1f %%", d.percent_of_amount);
@@ -208,6 +211,8 @@ void draw_result_panel() {
         for (int e : d.binding_arcs) ids += (ids.empty() ? "" : " ") + net.arcs[e].id;
         ImGui::SetTooltip("binding arcs: %s", ids.c_str());
       }
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(ends_name(net, k).c_str());
       if (have_change) {
         ImGui::TableNextColumn();
         auto before = a.previous_shares.find(dm.id);
