@@ -88,7 +88,10 @@ TEST_CASE("SVG: a picture for a report", "[svg]") {
   // The caution is there, wrapped, in full.
   std::string caution;
   for (const pugi::xml_node t : root.children("text"))
-    if (std::string(t.attribute("font-size").value()) == "11") caution += (caution.empty() ? "" : " ") + std::string(t.text().get());
+    if (std::string(t.attribute("font-size").value()) == "11") {
+      if (!caution.empty()) caution += ' ';
+      caution += t.text().get();
+    }
   CHECK(caution == kPlanningCaution);
 
   o.theme = PictureTheme::kDark;

@@ -30,8 +30,8 @@ EM_JS(char*, js_autosave_list, (), {
 });
 EM_JS(void, js_restore_autosave, (int slot), { apportionBridge.restoreAutosave(slot); });
 EM_JS(char*, js_read_setting, (const char* key), {
-  var s = '';
-  try { s = localStorage.getItem('apportion.' + UTF8ToString(key)) || ''; } catch (e) {}
+  var s = String();
+  try { s = localStorage.getItem('apportion.' + UTF8ToString(key)) || String(); } catch (e) {}
   var len = lengthBytesUTF8(s) + 1;
   var p = _malloc(len);
   stringToUTF8(s, p, len);
@@ -42,7 +42,7 @@ EM_JS(void, js_write_setting, (const char* key, const char* value), {
 });
 EM_JS(char*, js_local_time, (), {
   var d = new Date();
-  var two = function (n) { return (n < 10 ? '0' : '') + n; };
+  var two = function (n) { return String(n).padStart(2, '0'); };
   var s = d.getFullYear() + '-' + two(d.getMonth() + 1) + '-' + two(d.getDate()) + ' ' + two(d.getHours()) + ':' +
           two(d.getMinutes());
   var len = lengthBytesUTF8(s) + 1;

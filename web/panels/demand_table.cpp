@@ -23,12 +23,12 @@ const std::vector<int>& demand_rows() {
       [&](int x, int y, int column) {
         const Demand &p = net.demands[x], &q = net.demands[y];
         switch (column) {
-          case 0: return p.id < q.id;
-          case 1: return net.nodes[p.origin].id < net.nodes[q.origin].id;
-          case 2: return net.nodes[p.destination].id < net.nodes[q.destination].id;
-          case 3: return amount(x) < amount(y);
-          case 4: return p.weight < q.weight;
-          case 5: return p.label < q.label;
+          case 0: return p.label < q.label;
+          case 1: return p.id < q.id;
+          case 2: return net.nodes[p.origin].id < net.nodes[q.origin].id;
+          case 3: return net.nodes[p.destination].id < net.nodes[q.destination].id;
+          case 4: return amount(x) < amount(y);
+          case 5: return p.weight < q.weight;
         }
         return false;
       });
@@ -57,12 +57,12 @@ void draw_demand_table() {
                                 ImGuiTableFlags_Sortable | ImGuiTableFlags_SortTristate;
   if (!ImGui::BeginTable("demand-table", 7, flags)) return;
   ImGui::TableSetupScrollFreeze(0, 1);
+  ImGui::TableSetupColumn("label");  // labels first, as the shares table shows them
   ImGui::TableSetupColumn("id");
-  ImGui::TableSetupColumn("origin");
-  ImGui::TableSetupColumn("destination");
+  ImGui::TableSetupColumn("origin (node id)");
+  ImGui::TableSetupColumn("destination (node id)");
   ImGui::TableSetupColumn("amount (empty: max)");
   ImGui::TableSetupColumn("weight");
-  ImGui::TableSetupColumn("label");
   ImGui::TableSetupColumn("", ImGuiTableColumnFlags_WidthFixed | ImGuiTableColumnFlags_NoSort);
   ImGui::TableHeadersRow();
   take_sort_specs(a.demand_view);
@@ -79,6 +79,9 @@ void draw_demand_table() {
       double x;
       ImGui::TableNextColumn();
       ImGui::SetNextItemWidth(-1);
+      if (edit_text("##label", dm.label, s)) edit("label of demand " + dm.id, false, [&](Network& d) { d.demands[k].label = s; });
+      ImGui::TableNextColumn();
+      ImGui::SetNextItemWidth(-1);
       if (edit_text("##id", dm.id, s)) {
         if (s.empty() || a.doc.find_demand(s) >= 0) a.notice = "The demand id '" + s + "' is empty or taken.";
         else edit("rename demand " + dm.id, true, [&](Network& d) { d.demands[k].id = s; });
@@ -87,7 +90,10 @@ void draw_demand_table() {
         ImGui::TableNextColumn();
         ImGui::SetNextItemWidth(-1);
         const int node = end == 0 ? dm.origin : dm.destination;
-        if (edit_text(end == 0 ? "##origin" : "##destination", a.doc.nodes[node].id, s)) {
+        const bool typed = edit_text(end == 0 ? "##origin" : "##destination", a.doc.nodes[node].id, s);
+        if (ImGui::IsItemHovered() && !a.doc.nodes[node].label.empty())
+          ImGui::SetTooltip("%s", a.doc.nodes[node].label.c_str());
+        if (typed) {
           const int v = a.doc.find_node(s);
           if (v < 0) a.notice = "There is no node '" + s + "'.";
           else
@@ -108,9 +114,6 @@ void draw_demand_table() {
       ImGui::TableNextColumn();
       ImGui::SetNextItemWidth(-1);
       if (edit_number("##weight", dm.weight, x)) edit("weight of demand " + dm.id, true, [&](Network& d) { d.demands[k].weight = x; });
-      ImGui::TableNextColumn();
-      ImGui::SetNextItemWidth(-1);
-      if (edit_text("##label", dm.label, s)) edit("label of demand " + dm.id, false, [&](Network& d) { d.demands[k].label = s; });
       ImGui::TableNextColumn();
       if (ImGui::SmallButton("x")) remove = k;
       if (ImGui::IsItemHovered()) ImGui::SetTooltip("Delete demand %s", dm.id.c_str());
