@@ -47,6 +47,11 @@ struct Demand {
   double weight = 1.0;
 };
 
+// The name a person reads, on the canvas, in tables and pictures: the label, or the id when
+// there is none.
+inline const std::string& shown_name(const Node& v) { return v.label.empty() ? v.id : v.label; }
+inline const std::string& shown_name(const Demand& d) { return d.label.empty() ? d.id : d.label; }
+
 struct Units {
   std::string capacity;  // e.g. "Gbit/s", "t/day"
   std::string cost;      // e.g. "EUR/Gbit"

@@ -193,7 +193,7 @@ std::string network_svg(const Network& net, const MultiflowResult* result, const
   }
   for (const Node& v : net.nodes) {
     const auto [x, y] = layout.position(v);
-    const std::string label = xml_escape(v.label.empty() ? v.id : v.label);
+    const std::string label = xml_escape(shown_name(v));
     s << "<circle cx=\"" << x << "\" cy=\"" << y << "\" r=\"7\" fill=\"" << c.ink << "\" stroke=\"" << c.background
       << "\" stroke-width=\"1.5\"/>";
     // A halo in the background's colour under each label keeps it readable across arcs.

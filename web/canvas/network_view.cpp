@@ -290,7 +290,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   }
   for (int v : by_importance) {
     const ImVec2 c = at(v);
-    const std::string& label = net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
+    const std::string& label = shown_name(net.nodes[v]);
     const ImVec2 size = ImGui::CalcTextSize(label.c_str());
     const float gap = node_r + 3 * ui_scale;
     const ImVec2 places[] = {ImVec2(c.x + gap, c.y - size.y / 2), ImVec2(c.x - gap - size.x, c.y - size.y / 2),
@@ -419,9 +419,8 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
   } else if (hover_arc >= 0 && !view.moving && !view.boxing) {
     const Arc& arc = net.arcs[hover_arc];
     ImGui::BeginTooltip();
-    auto name = [&](int v) { return net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label; };
-    ImGui::Text("%s %s %s  (arc %s%s)", name(arc.from).c_str(), arc.shared_two_way ? "\u2194" : "\u2192",
-                name(arc.to).c_str(), arc.id.c_str(), arc.shared_two_way ? ", shared two-way" : "");
+    ImGui::Text("%s %s %s  (arc %s%s)", shown_name(net.nodes[arc.from]).c_str(), arc.shared_two_way ? "\u2194" : "\u2192",
+                shown_name(net.nodes[arc.to]).c_str(), arc.id.c_str(), arc.shared_two_way ? ", shared two-way" : "");
     const char* unit = net.units.capacity.c_str();
     ImGui::Text("capacity %.6g %s%s", arc.capacity, unit, arc.enabled ? "" : " (out of service)");
     if (flow && hover_arc < static_cast<int>(flow->arcs.size())) {
@@ -429,8 +428,7 @@ CanvasInput draw_network(const Network& net, const MultiflowResult* flow, const 
       ImGui::Text("load %.6g %s (%.1f %%), shadow price %.4g%s", l.load, unit, 100 * l.utilisation, l.shadow_price,
                   l.tier ? (", binds in tier " + std::to_string(l.tier)).c_str() : "");
       for (auto [k, f] : l.per_demand)
-        ImGui::BulletText("%s: %.6g %s", (net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label).c_str(),
-                          f, unit);
+        ImGui::BulletText("%s: %.6g %s", shown_name(net.demands[k]).c_str(), f, unit);
     }
     ImGui::EndTooltip();
   }

@@ -27,12 +27,9 @@ double share_change(int k) {
 
 namespace {
 
-// Names as the canvas shows them: labels first, the id where there is no label.
-std::string demand_name(const Network& net, int k) {
-  return net.demands[k].label.empty() ? net.demands[k].id : net.demands[k].label;
-}
+// A demand's ends as the canvas names them.
 std::string ends_name(const Network& net, int k) {
-  return node_name(net, net.demands[k].origin) + " \u2192 " + node_name(net, net.demands[k].destination);
+  return shown_name(net.nodes[net.demands[k].origin]) + " \u2192 " + shown_name(net.nodes[net.demands[k].destination]);
 }
 // What stops demand k: its amount, the arcs that bind it (by their ends' names), or why it
 // got nothing at all.
@@ -70,7 +67,7 @@ const std::vector<int>& share_rows() {
     if (keyed_column != column) {
       keys.assign(count, std::string());
       for (int i = 0; i < count; ++i)
-        keys[i] = column == 0 ? demand_name(net, i) : column == 4 ? bound_text(net, r, i) : ends_name(net, i);
+        keys[i] = column == 0 ? shown_name(net.demands[i]) : column == 4 ? bound_text(net, r, i) : ends_name(net, i);
       keyed_column = column;
     }
     return keys[k];
@@ -109,11 +106,9 @@ void draw_result_panel() {
   }
   const char* unit = net.units.capacity.c_str();
   // What the rule optimises, so that every number below reads against it.
-  for (int i = 0; i < static_cast<int>(std::size(kObjectives)); ++i)
-    if (kObjectives[i] == r.objective) ImGui::TextDisabled("%s", kObjectiveLabels[i]);
   ImGui::PushTextWrapPos(0);
   for (int i = 0; i < static_cast<int>(std::size(kObjectives)); ++i)
-    if (kObjectives[i] == r.objective) ImGui::TextDisabled("%s", kObjectiveExplanations[i]);
+    if (kObjectives[i] == r.objective) ImGui::TextDisabled("%s\n%s", kObjectiveLabels[i], kObjectiveExplanations[i]);
   if (r.objective == FairObjective::kFeasibility) {
     if (r.all_demands_met)
       ImGui::Text("Every demand can be met in full (lambda = %.4g).", r.lambda);
@@ -194,7 +189,7 @@ void draw_result_panel() {
       // Selecting a demand shows its paths and binding arcs on the canvas.
       const bool selected = a.view.filter_demand == k;
       ImGui::PushID(k);
-      if (ImGui::Selectable(demand_name(net, k).c_str(), selected, ImGuiSelectableFlags_SpanAllColumns)) {
+      if (ImGui::Selectable(shown_name(net.demands[k]).c_str(), selected, ImGuiSelectableFlags_SpanAllColumns)) {
         a.view.filter_demand = selected ? -1 : k;
         a.view.filter_tier = 0;
         a.selection = Selection{};
@@ -203,7 +198,7 @@ void draw_result_panel() {
       ImGui::PopID();
       if (ImGui::IsItemHovered())
         ImGui::SetTooltip("demand %s%s%s: from %s to %s", dm.id.c_str(), dm.label.empty() ? "" : ", ",
-                          dm.label.c_str(), node_name(net, dm.origin).c_str(), node_name(net, dm.destination).c_str());
+                          dm.label.c_str(), shown_name(net.nodes[dm.origin]).c_str(), shown_name(net.nodes[dm.destination]).c_str());
       if (!dm.label.empty()) {
         ImGui::SameLine();
         ImGui::TextDisabled("%s", dm.id.c_str());

@@ -22,14 +22,11 @@ inline std::string lowered(std::string s) {
   return s;
 }
 
-// A node and an arc as the canvas names them: the node's label (its id when it has none);
-// an arc by its ends, "A \u2192 B" (or "A \u2194 B" when both directions share it).
-inline std::string node_name(const Network& net, int v) {
-  return net.nodes[v].label.empty() ? net.nodes[v].id : net.nodes[v].label;
-}
+// An arc as the canvas names it: by its ends' shown names, "A \u2192 B" (or "A \u2194 B"
+// when both directions share it).
 inline std::string arc_name(const Network& net, int e) {
   const Arc& a = net.arcs[e];
-  return node_name(net, a.from) + (a.shared_two_way ? " \u2194 " : " \u2192 ") + node_name(net, a.to);
+  return shown_name(net.nodes[a.from]) + (a.shared_two_way ? " \u2194 " : " \u2192 ") + shown_name(net.nodes[a.to]);
 }
 
 // Whether demand k's id, label, origin or destination id contains the lower-case needle.

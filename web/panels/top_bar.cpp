@@ -145,7 +145,7 @@ void table_preview(MatrixChoices& m) {
       ImGui::BeginTable("table-preview", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_SizingStretchProp)) {
     for (const char* h : {"id", "origin", "destination", "amount", "weight"}) ImGui::TableSetupColumn(h);
     ImGui::TableHeadersRow();
-    auto node = [&](int v) { return a.doc.nodes[v].label.empty() ? a.doc.nodes[v].id : a.doc.nodes[v].label; };
+    auto node = [&](int v) { return shown_name(a.doc.nodes[v]); };
     for (std::size_t i = 0; i < t.demands.size() && i < 6; ++i) {
       const Demand& k = t.demands[i];
       ImGui::TableNextRow();
