@@ -10,6 +10,7 @@
 #include "apportion/flow/flow_graph.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/tolerance.h"
+#include "apportion/multiflow/origin_master.h"
 #include "apportion/multiflow/path_master.h"
 #include "apportion/multiflow/unit_scale.h"
 
@@ -69,7 +70,7 @@ class Engine {
     const LpStatus s = master_.solve(first);
     if (opt_.on_progress) {
       progress_.demands = K();
-      progress_.lp_solves = master_.stats().lp_solves;
+      progress_.lp_solves = master_.stats().lp_solves + origin_stats_.lp_solves;
       opt_.on_progress(progress_);
     }
     if (s == LpStatus::kOptimal) return true;
@@ -94,6 +95,10 @@ class Engine {
   }
 
   bool max_min(MultiflowResult& r, std::vector<double>& fair);
+  void place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std::vector<int>& unreachable, double t);
+  bool max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
+  bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>* routes);
+  bool use_origins() const { return opt_.by_origin && opt_.routing.k_paths <= 0; }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
                bool& yes, MultiflowResult& r);
   bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
@@ -103,9 +108,19 @@ class Engine {
   bool max_concurrent(MultiflowResult& r, double& lambda);
   bool tidy_routes(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual);
   void collect(MultiflowResult& r, const std::vector<double>* fixed_shares);
+  void collect_routes(MultiflowResult& r, const std::vector<OriginPiece>& routes, const std::vector<double>* fixed_shares);
   void explain_tiers(MultiflowResult& r);
   void feasibility_certificate(MultiflowResult& r);
   void totals(MultiflowResult& r);
+  void add_stats(MultiflowResult& r) const {
+    const MultiflowStats& ms = master_.stats();
+    r.stats.lp_solves = ms.lp_solves + origin_stats_.lp_solves;
+    r.stats.simplex_iterations = ms.simplex_iterations + origin_stats_.simplex_iterations;
+    r.stats.pricing_rounds = ms.pricing_rounds + origin_stats_.pricing_rounds;
+    r.stats.path_columns = ms.path_columns + origin_stats_.path_columns;
+    r.stats.paths_dropped = ms.paths_dropped;
+    r.stats.paths_restored = ms.paths_restored;
+  }
 
   // The method for a solve after changes that keep the last solution feasible (see
   // FairOptions::dual_rounds: the dual simplex is slower, but its solutions lie on their bounds).
@@ -119,6 +134,7 @@ class Engine {
   std::vector<Tolerance> demand_tol_;  // per demand: 1e-9 of its own scale (demand_tolerances)
   std::vector<double> concurrent_lengths_;
   SolveProgress progress_;
+  MultiflowStats origin_stats_;  // of the origin-aggregated rounds (origin_master.h)
 };
 
 // Whether a demand's share is zero, reached its amount or grew is judged at the demand's own
@@ -157,6 +173,24 @@ std::vector<Tolerance> Engine::demand_tolerances() const {
     }
   }
   return tols;
+}
+
+// Demands no path can serve freeze at 0 with the first round that reaches level 0 (joining
+// `freeze`), or form the first tier of their own, before the round's tier.
+void Engine::place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std::vector<int>& unreachable, double t) {
+  if (unreachable.empty()) return;
+  bool level_zero = true;  // zero for every demand of this round, at its own scale
+  for (int k : freeze) level_zero = level_zero && demand_tol_[k].zero(t * specs_[k].weight);
+  if (level_zero) {
+    freeze.insert(freeze.end(), unreachable.begin(), unreachable.end());
+  } else {
+    Tier zero;
+    zero.index = static_cast<int>(r.tiers.size()) + 1;
+    zero.demands = unreachable;
+    for (int k : unreachable) r.demands[k].tier = zero.index;
+    r.tiers.push_back(zero);
+  }
+  unreachable.clear();
 }
 
 // Progressive filling with exact freezing; fills r.tiers and r.demands[k].tier and
@@ -285,22 +319,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
       r.message = "no demand could be frozen at level " + std::to_string(t) + " (tolerances too tight for this data)";
       return false;
     }
-    // Demands no path can serve freeze at 0 with the first round that reaches level 0, or
-    // form the first tier of their own.
-    if (!unreachable.empty()) {
-      bool level_zero = true;  // zero for every demand of this round, at its own scale
-      for (int k : freeze) level_zero = level_zero && demand_tol_[k].zero(t * specs_[k].weight);
-      if (level_zero) {
-        freeze.insert(freeze.end(), unreachable.begin(), unreachable.end());
-      } else {
-        Tier zero;
-        zero.index = static_cast<int>(r.tiers.size()) + 1;
-        zero.demands = unreachable;
-        for (int k : unreachable) r.demands[k].tier = zero.index;
-        r.tiers.push_back(zero);
-      }
-      unreachable.clear();
-    }
+    place_unreachable(r, freeze, unreachable, t);
     tier.index = static_cast<int>(r.tiers.size()) + 1;
     std::sort(freeze.begin(), freeze.end());
     for (int k : freeze) {
@@ -326,6 +345,113 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
   }
   lp().set_cost(level, 0.0);
   return true;
+}
+
+// Progressive filling on the origin-aggregated LP (origin_master.h). Each round raises the
+// open demands' level t and freezes those at their amounts and those with a positive dual
+// (distance under the arc prices), as step 2 of fair_multiflow.h proves; the others stay
+// open, and the next round, starting from the same level, freezes more (the duals of a
+// round at an unchanged level sum to 1 over its open demands, so some are positive). Rounds
+// that end at the same level form one tier. With a few hundred rows per LP, a round costs
+// milliseconds, so no sum tests or amount search are needed to keep the rounds few.
+bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes) {
+  OriginMaster om(g_, specs_, opt_.routing, std::vector<double>(g_.arc_count(), 1.0));
+  fair.assign(K(), 0.0);
+  std::vector<char> frozen(K(), 0);
+  std::vector<int> unreachable;
+  for (int k = 0; k < K(); ++k)
+    if (!om.reachable(k)) frozen[k] = 1, unreachable.push_back(k);
+  progress_.stage = "max-min fair";
+  auto failed = [&](LpStatus s) {
+    r.status = SolveStatus::kNumericalDifficulty;
+    r.message = std::string("the LP solver reported '") + lp_status_name(s) + "'";
+    origin_stats_ = om.stats();
+    return false;
+  };
+  for (int round = 1;; ++round) {
+    progress_.round = round;
+    std::vector<int> open;
+    for (int k = 0; k < K(); ++k)
+      if (!frozen[k]) open.push_back(k);
+    if (open.empty()) break;
+    double cap_t = kInf, weight_sum = 0.0;
+    for (int k : open) cap_t = std::min(cap_t, specs_[k].amount / specs_[k].weight), weight_sum += specs_[k].weight;
+    const LpStatus s = om.raise(cap_t);
+    if (opt_.on_progress) {
+      progress_.demands = K();
+      progress_.lp_solves = om.stats().lp_solves;
+      opt_.on_progress(progress_);
+    }
+    if (s != LpStatus::kOptimal) return failed(s);
+    const double t = om.level();
+    // As in max_min: duals sum to 1 / (mean weight) over a bottleneck's demands.
+    const double dual_tol = 1e-9 * static_cast<double>(open.size()) / weight_sum;
+    std::vector<int> freeze;
+    for (int k : open) {
+      const bool at_amount = std::isfinite(specs_[k].amount) && !demand_tol_[k].less(t * specs_[k].weight, specs_[k].amount);
+      if (at_amount) {
+        r.demands[k].limited_by_amount = true;
+        freeze.push_back(k);
+      } else if (om.demand_dual(k) > dual_tol) {
+        freeze.push_back(k);
+      }
+    }
+    if (freeze.empty()) {
+      r.status = SolveStatus::kNumericalDifficulty;
+      r.message = "no demand could be frozen at level " + format_number(t) + " (tolerances too tight for this data)";
+      origin_stats_ = om.stats();
+      return false;
+    }
+    place_unreachable(r, freeze, unreachable, t);
+    // A round at the level of the last tier settles more of that tier (the per-demand
+    // rounds settle them in one round, by sum tests). "The same" is judged at the LP's
+    // tolerance (1e-7): each round solves its level anew, to that accuracy.
+    const bool same = !r.tiers.empty() && Tolerance(1e-7 * std::max(t, r.tiers.back().level)).equal(t, r.tiers.back().level);
+    if (!same) {
+      Tier tier;
+      tier.index = static_cast<int>(r.tiers.size()) + 1;
+      tier.level = t;
+      r.tiers.push_back(tier);
+    }
+    Tier& tier = r.tiers.back();
+    for (int a = 0; a < g_.arc_count(); ++a) {
+      const double price = om.arc_price(a);
+      if (price > dual_tol && std::find(tier.binding_arcs.begin(), tier.binding_arcs.end(), a) == tier.binding_arcs.end())
+        tier.binding_arcs.push_back(a), tier.binding_prices.push_back(price);
+    }
+    std::vector<double> shares;
+    for (int k : freeze) {
+      frozen[k] = 1;
+      fair[k] = om.reachable(k) ? std::min(specs_[k].amount, specs_[k].weight * tier.level) : 0.0;
+      shares.push_back(fair[k]);
+      r.demands[k].tier = tier.index;
+      tier.demands.push_back(k);
+    }
+    std::sort(tier.demands.begin(), tier.demands.end());
+    progress_.demands_settled += static_cast<int>(freeze.size());
+    om.freeze(freeze, shares);
+  }
+  if (!unreachable.empty()) {  // every demand is unreachable
+    Tier zero;
+    zero.index = 1;
+    zero.demands = unreachable;
+    for (int k : unreachable) r.demands[k].tier = 1;
+    r.tiers.push_back(zero);
+  }
+  progress_.stage = "routes";
+  const LpStatus s = om.tidy();
+  if (s != LpStatus::kOptimal) return failed(s);
+  routes = om.routing();
+  origin_stats_ = om.stats();
+  return true;
+}
+
+// The max-min fair shares, on the origin-aggregated LP (with the routes, when `routes` is
+// given) or on the per-demand one.
+bool Engine::fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>* routes) {
+  std::vector<OriginPiece> unused;
+  if (use_origins()) return max_min_by_origin(r, fair, routes ? *routes : unused);
+  return max_min(r, fair);
 }
 
 // Whether every open demand k can have min(w_k G, a_k) at once, G = levels[g]: maximise t
@@ -486,11 +612,20 @@ bool Engine::tidy_routes(MultiflowResult& r, LpSolver::Method first) {
 }
 
 void Engine::collect(MultiflowResult& r, const std::vector<double>* fixed_shares) {
+  std::vector<OriginPiece> routes;
+  for (const MasterPath& p : master_.paths()) routes.push_back({p.demand, p.lanes, lp().value(p.column)});
+  collect_routes(r, routes, fixed_shares);
+}
+
+// The lanes of both masters are the graph's usable lanes in the same order.
+void Engine::collect_routes(MultiflowResult& r, const std::vector<OriginPiece>& routes,
+                            const std::vector<double>* fixed_shares) {
   const std::vector<Lane>& lanes = master_.lanes();
   r.arcs.assign(g_.arc_count(), ArcLoad{});
-  std::vector<std::vector<double>> per(g_.arc_count());
-  for (const MasterPath& p : master_.paths()) {
-    const double x = lp().value(p.column);
+  std::vector<double> routed(K(), 0.0);
+  for (const OriginPiece& p : routes) {
+    const double x = p.amount;
+    routed[p.demand] += x;
     if (!demand_tol_[p.demand].positive(x)) continue;
     PathShare ps;
     ps.amount = x;
@@ -521,7 +656,7 @@ void Engine::collect(MultiflowResult& r, const std::vector<double>* fixed_shares
     std::sort(d.paths.begin(), d.paths.end(), [](const PathShare& a, const PathShare& b) {
       return a.amount != b.amount ? a.amount > b.amount : a.arcs < b.arcs;
     });
-    d.share = fixed_shares ? (*fixed_shares)[k] : lp().value(master_.share_column(k));
+    d.share = fixed_shares ? (*fixed_shares)[k] : routed[k];
     if (demand_tol_[k].zero(d.share)) d.share = 0.0;
     d.normalised = d.share / specs_[k].weight;
     d.percent_of_amount = std::isfinite(specs_[k].amount)
@@ -652,10 +787,15 @@ MultiflowResult Engine::run() {
   double value = 0.0;
   switch (opt_.objective) {
     case FairObjective::kMaxMinFair: {
-      if (!max_min(r, fair)) return r;
-      for (int k = 0; k < K(); ++k) share_bounds(k, fair[k], fair[k]);
-      if (!tidy_routes(r, onward())) return r;
-      collect(r, &fair);
+      std::vector<OriginPiece> routes;
+      if (!fair_shares(r, fair, &routes)) break;
+      if (use_origins()) {
+        collect_routes(r, routes, &fair);
+      } else {
+        for (int k = 0; k < K(); ++k) share_bounds(k, fair[k], fair[k]);
+        if (!tidy_routes(r, onward())) return r;
+        collect(r, &fair);
+      }
       explain_tiers(r);
       if (opt_.compare_throughput) {
         if (!max_throughput(r, false, value)) return r;
@@ -664,7 +804,12 @@ MultiflowResult Engine::run() {
       break;
     }
     case FairObjective::kTradeoff: {
-      if (!max_min(r, fair)) return r;
+      std::vector<OriginPiece> routes;
+      if (!fair_shares(r, fair, &routes)) break;
+      // The fair routing's paths: with them the LP below starts feasible (every share at
+      // least (1 - epsilon) of its fair one), where one path per demand may not be.
+      for (OriginPiece& p : routes)
+        if (p.amount > 0) master_.add_route(p.demand, std::move(p.lanes));
       progress_.stage = "throughput with a fairness floor";
       reset_objective();
       const double keep = 1.0 - std::clamp(opt_.epsilon, 0.0, 1.0);
@@ -720,18 +865,16 @@ MultiflowResult Engine::run() {
       break;
     }
   }
+  if (r.status == SolveStatus::kNumericalDifficulty) {
+    add_stats(r);
+    return r;
+  }
   totals(r);
   // The price of fairness is what a fair rule gives up against the most throughput; the
   // throughput rule gives up nothing by its definition, and feasibility has no fairness.
   if (opt_.objective == FairObjective::kFeasibility || opt_.objective == FairObjective::kMaxThroughput)
     r.price_of_fairness = -1.0;
-  const MultiflowStats& ms = master_.stats();
-  r.stats.lp_solves = ms.lp_solves;
-  r.stats.simplex_iterations = ms.simplex_iterations;
-  r.stats.pricing_rounds = ms.pricing_rounds;
-  r.stats.path_columns = ms.path_columns;
-  r.stats.paths_dropped = ms.paths_dropped;
-  r.stats.paths_restored = ms.paths_restored;
+  add_stats(r);
   r.status = SolveStatus::kOptimal;  // until the check, which the caller runs in the file's units
   return r;
 }
@@ -774,13 +917,10 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   // many orders of magnitude that can fail the check on the smallest arcs. Those networks
   // are solved again with dual_rounds, and only that verdict stands. (Only the max-min rounds
   // differ between the two ways.)
-  MultiflowResult r = attempt(options);
   const bool rounds = options.objective == FairObjective::kMaxMinFair || options.objective == FairObjective::kTradeoff;
-  if (r.status == SolveStatus::kNumericalDifficulty && rounds && !options.dual_rounds) {
+  auto again = [&](MultiflowResult& r, const FairOptions& other) {
     const MultiflowStats first = r.stats;
-    FairOptions careful = options;
-    careful.dual_rounds = true;
-    r = attempt(careful);
+    r = attempt(other);
     r.stats.lp_solves += first.lp_solves;
     r.stats.simplex_iterations += first.simplex_iterations;
     r.stats.pricing_rounds += first.pricing_rounds;
@@ -788,6 +928,21 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     r.stats.paths_dropped += first.paths_dropped;
     r.stats.paths_restored += first.paths_restored;
     r.stats.saturation_tests += first.saturation_tests;
+    r.stats.retries = first.retries + 1;
+  };
+  MultiflowResult r = attempt(options);
+  // Rounds aggregated by origin that fail (numerical trouble in their LPs) give way to the
+  // per-demand rounds, with the same options otherwise.
+  if (r.status == SolveStatus::kNumericalDifficulty && rounds && options.by_origin) {
+    FairOptions per_demand = options;
+    per_demand.by_origin = false;
+    again(r, per_demand);
+  }
+  if (r.status == SolveStatus::kNumericalDifficulty && rounds && !options.dual_rounds) {
+    FairOptions careful = options;
+    careful.dual_rounds = true;
+    careful.by_origin = false;
+    again(r, careful);
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {
     // Say what makes this network hard, and what to do about it: the LP solver's tolerances

@@ -1,6 +1,8 @@
 // LpSolver over HiGHS; see lp_solver.h. The only file of the core that includes HiGHS.
 #include "apportion/multiflow/lp_solver.h"
 
+#include <limits>
+
 #include <Highs.h>
 
 namespace apportion {
@@ -43,6 +45,11 @@ int LpSolver::add_row(double lower, double upper, const std::vector<int>& column
 
 void LpSolver::set_method(Method m) {
   impl_->highs.setOptionValue("simplex_strategy", m == Method::kPrimal ? kSimplexStrategyPrimal : kSimplexStrategyDual);
+}
+
+void LpSolver::set_iteration_limit(long long limit) {
+  impl_->highs.setOptionValue("simplex_iteration_limit",
+                              static_cast<HighsInt>(limit > 0 ? limit : std::numeric_limits<HighsInt>::max()));
 }
 
 void LpSolver::set_cost(int column, double cost) { impl_->highs.changeColCost(column, cost); }

@@ -64,6 +64,9 @@ class LpSolver {
   // bounds that cut off the current point, the dual simplex is the right one.
   enum class Method { kDual, kPrimal };
   void set_method(Method m);
+  // A solve that takes more simplex iterations than this stops with kFailed (0: no limit);
+  // a guard against a simplex that stalls on an ill-conditioned model.
+  void set_iteration_limit(long long limit);
   double objective() const;
   double value(int column) const;
   double row_value(int row) const;

@@ -68,6 +68,14 @@ struct FairOptions {
   // unattractive once the paths outnumber the rows this many times (path_master.h); 0: every
   // path priced in stays, the method before, kept to measure against.
   double path_pool = 2.0;
+  // true: the max-min rounds run on the LP with the demands aggregated by origin
+  // (origin_master.h: one row per arc and two per origin), without sum tests or amount
+  // search. Experimental, for the benchmark (apportion-fair-bench --by-origin): each LP is
+  // small, but every round starts cold and some stall, so it is not yet faster everywhere
+  // (README, Benchmark); a failure falls back to the per-demand rounds. false (the
+  // default): the per-demand path LP (path_master.h). Fixed path sets (k_paths) always use
+  // the latter.
+  bool by_origin = false;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 
@@ -125,6 +133,7 @@ struct MultiflowStats {
   int paths_dropped = 0;     // unused paths dropped from the LP (FairOptions::path_pool)
   int paths_restored = 0;    // times the dropped paths all came back for an infeasible LP
   int saturation_tests = 0;  // LPs run to settle zero-dual demands
+  int retries = 0;           // times the network was solved again another way (solve_multiflow)
 };
 
 struct MultiflowResult {

@@ -70,6 +70,10 @@ class PathMaster {
   // the primal.
   LpStatus solve(LpSolver::Method first = LpSolver::Method::kDual);
 
+  // Adds a path column for `demand` (lanes into lanes()), unless it is there already: to
+  // start from routes found elsewhere (the origin-aggregated rounds).
+  void add_route(int demand, std::vector<int> lanes) { add_path(demand, std::move(lanes)); }
+
   const std::vector<Lane>& lanes() const { return pricer_.lanes(); }
   const std::vector<MasterPath>& paths() const { return paths_; }
   const MultiflowStats& stats() const { return stats_; }

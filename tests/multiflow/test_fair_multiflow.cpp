@@ -303,6 +303,38 @@ TEST_CASE("max-min: properties on random networks", "[fair][property]") {
   }
 }
 
+// The origin-aggregated rounds (origin_master.h) against the per-demand ones: the same
+// shares, and every demand frozen at the same level, on random networks with amounts
+// (integer data, so that amount levels coincide with bottleneck levels) and weights. The
+// aggregated rounds must have run to the end, not fallen back to the per-demand LP.
+TEST_CASE("max-min: the rounds aggregated by origin give the per-demand rounds' answer", "[fair][property]") {
+  std::mt19937_64 rng(4142);
+  for (int i = 0; i < 40; ++i) {
+    const int nodes = 3 + static_cast<int>(rng() % 6);
+    Network net = random_network(rng, nodes, nodes + 2 + static_cast<int>(rng() % 10), 2 + static_cast<int>(rng() % 20));
+    for (Demand& d : net.demands) {
+      if (rng() % 3 != 0) d.amount = 0.25 * static_cast<double>(1 + rng() % 12);
+      if (rng() % 4 == 0) d.weight = 2.0;
+    }
+    FairOptions by_origin, per_demand;
+    by_origin.by_origin = true;
+    per_demand.by_origin = false;
+    const MultiflowResult a = solve_multiflow(net, by_origin), b = solve_multiflow(net, per_demand);
+    INFO("instance " << i);
+    REQUIRE(a.status == SolveStatus::kOptimal);
+    REQUIRE(b.status == SolveStatus::kOptimal);
+    REQUIRE(a.check.ok);
+    CHECK(a.stats.retries == 0);
+    CHECK(a.stats.saturation_tests == 0);  // none run: the per-demand rounds did not run
+    REQUIRE(a.tiers.size() == b.tiers.size());
+    for (std::size_t k = 0; k < net.demands.size(); ++k) {
+      CHECK_THAT(a.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
+      CHECK(a.demands[k].limited_by_amount == b.demands[k].limited_by_amount);
+      CHECK_THAT(a.tiers[a.demands[k].tier - 1].level, WithinAbs(b.tiers[b.demands[k].tier - 1].level, 1e-7));
+    }
+  }
+}
+
 // The amount search (fair_multiflow.h, step 2a) must give what one round per amount level
 // gives: the same shares, the same tiers at the same levels. Instances with many demands
 // limited by their amounts, and integer data so that amount levels often coincide with

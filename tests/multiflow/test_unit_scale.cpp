@@ -79,6 +79,10 @@ void require_same_answer_in_other_units(const Network& net, FairObjective object
     for (std::size_t t = 0; t < base.tiers.size(); ++t) {
       CHECK(scaled.tiers[t].demands == base.tiers[t].demands);
       if (unique_duals) CHECK(scaled.tiers[t].binding_arcs == base.tiers[t].binding_arcs);
+      // Either way the binding arcs are full: a positive dual in the proof of a tier means
+      // its demands' shares use the arc's whole capacity (complementary slackness).
+      for (int a : scaled.tiers[t].binding_arcs)
+        CHECK(scaled.arcs[a].load >= (1 - 1e-9) * times(net, f).arcs[a].capacity);
       CHECK(same(base.tiers[t].level, scaled.tiers[t].level));
     }
     for (std::size_t d = 0; d < base.demands.size(); ++d) {
