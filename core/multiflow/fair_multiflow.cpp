@@ -68,15 +68,17 @@ class Engine {
   LpSolver& lp() { return master_.lp(); }
   bool solve(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual) {
     const LpStatus s = master_.solve(first);
-    if (opt_.on_progress) {
-      progress_.demands = K();
-      progress_.lp_solves = master_.stats().lp_solves + origin_stats_.lp_solves;
-      opt_.on_progress(progress_);
-    }
+    report(master_.stats().lp_solves + origin_stats_.lp_solves);
     if (s == LpStatus::kOptimal) return true;
     r.status = SolveStatus::kNumericalDifficulty;
     r.message = std::string("the LP solver reported '") + lp_status_name(s) + "' (" + lp().last_message() + ")";
     return false;
+  }
+  void report(int lp_solves) {
+    if (!opt_.on_progress) return;
+    progress_.demands = K();
+    progress_.lp_solves = lp_solves;
+    opt_.on_progress(progress_);
   }
   // Shares: bounds of f_k; all level rows off; no objective.
   void reset_objective() {
@@ -96,8 +98,9 @@ class Engine {
 
   bool max_min(MultiflowResult& r, std::vector<double>& fair);
   void place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std::vector<int>& unreachable, double t);
+  void zero_tier(MultiflowResult& r, const std::vector<int>& unreachable);
   bool max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
-  bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>* routes);
+  bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool use_origins() const { return opt_.by_origin && opt_.routing.k_paths <= 0; }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
                bool& yes, MultiflowResult& r);
@@ -184,13 +187,18 @@ void Engine::place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std
   if (level_zero) {
     freeze.insert(freeze.end(), unreachable.begin(), unreachable.end());
   } else {
-    Tier zero;
-    zero.index = static_cast<int>(r.tiers.size()) + 1;
-    zero.demands = unreachable;
-    for (int k : unreachable) r.demands[k].tier = zero.index;
-    r.tiers.push_back(zero);
+    zero_tier(r, unreachable);
   }
   unreachable.clear();
+}
+
+// The demands no path can serve, as a tier at level 0 after the tiers so far.
+void Engine::zero_tier(MultiflowResult& r, const std::vector<int>& unreachable) {
+  Tier zero;
+  zero.index = static_cast<int>(r.tiers.size()) + 1;
+  zero.demands = unreachable;
+  for (int k : unreachable) r.demands[k].tier = zero.index;
+  r.tiers.push_back(zero);
 }
 
 // Progressive filling with exact freezing; fills r.tiers and r.demands[k].tier and
@@ -336,13 +344,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     r.tiers.push_back(tier);
     lp().set_column_bounds(level, 0.0, kInf);
   }
-  if (!unreachable.empty()) {  // every demand is unreachable
-    Tier zero;
-    zero.index = 1;
-    zero.demands = unreachable;
-    for (int k : unreachable) r.demands[k].tier = 1;
-    r.tiers.push_back(zero);
-  }
+  if (!unreachable.empty()) zero_tier(r, unreachable);  // every demand is unreachable
   lp().set_cost(level, 0.0);
   return true;
 }
@@ -377,11 +379,7 @@ bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, st
     double cap_t = kInf, weight_sum = 0.0;
     for (int k : open) cap_t = std::min(cap_t, specs_[k].amount / specs_[k].weight), weight_sum += specs_[k].weight;
     const LpStatus s = om.raise(cap_t);
-    if (opt_.on_progress) {
-      progress_.demands = K();
-      progress_.lp_solves = om.stats().lp_solves;
-      opt_.on_progress(progress_);
-    }
+    report(om.stats().lp_solves);
     if (s != LpStatus::kOptimal) return failed(s);
     const double t = om.level();
     // As in max_min: duals sum to 1 / (mean weight) over a bottleneck's demands.
@@ -431,13 +429,7 @@ bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, st
     progress_.demands_settled += static_cast<int>(freeze.size());
     om.freeze(freeze, shares);
   }
-  if (!unreachable.empty()) {  // every demand is unreachable
-    Tier zero;
-    zero.index = 1;
-    zero.demands = unreachable;
-    for (int k : unreachable) r.demands[k].tier = 1;
-    r.tiers.push_back(zero);
-  }
+  if (!unreachable.empty()) zero_tier(r, unreachable);  // every demand is unreachable
   progress_.stage = "routes";
   const LpStatus s = om.tidy();
   if (s != LpStatus::kOptimal) return failed(s);
@@ -446,12 +438,10 @@ bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, st
   return true;
 }
 
-// The max-min fair shares, on the origin-aggregated LP (with the routes, when `routes` is
-// given) or on the per-demand one.
-bool Engine::fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>* routes) {
-  std::vector<OriginPiece> unused;
-  if (use_origins()) return max_min_by_origin(r, fair, routes ? *routes : unused);
-  return max_min(r, fair);
+// The max-min fair shares, on the origin-aggregated LP (with its routes) or on the
+// per-demand one (whose routes stay in its LP).
+bool Engine::fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes) {
+  return use_origins() ? max_min_by_origin(r, fair, routes) : max_min(r, fair);
 }
 
 // Whether every open demand k can have min(w_k G, a_k) at once, G = levels[g]: maximise t
@@ -788,7 +778,7 @@ MultiflowResult Engine::run() {
   switch (opt_.objective) {
     case FairObjective::kMaxMinFair: {
       std::vector<OriginPiece> routes;
-      if (!fair_shares(r, fair, &routes)) break;
+      if (!fair_shares(r, fair, routes)) break;
       if (use_origins()) {
         collect_routes(r, routes, &fair);
       } else {
@@ -805,7 +795,7 @@ MultiflowResult Engine::run() {
     }
     case FairObjective::kTradeoff: {
       std::vector<OriginPiece> routes;
-      if (!fair_shares(r, fair, &routes)) break;
+      if (!fair_shares(r, fair, routes)) break;
       // The fair routing's paths: with them the LP below starts feasible (every share at
       // least (1 - epsilon) of its fair one), where one path per demand may not be.
       for (OriginPiece& p : routes)

@@ -21,16 +21,9 @@ OriginMaster::OriginMaster(const FlowGraph& g, const std::vector<DemandSpec>& de
     : g_(g),
       demands_(demands),
       route_length_(route_length),
-      pricer_(g,
-              [&] {
-                std::vector<char> u(g.arc_count());
-                for (int a = 0; a < g.arc_count(); ++a) u[a] = g.capacity(a) > 0 && g.tail(a) != g.head(a);
-                return u;
-              }(),
-              routing.hop_limit) {
+      pricer_(g, usable_arcs(g), routing.hop_limit),
+      usable_(usable_arcs(g)) {
   const int K = static_cast<int>(demands_.size());
-  usable_.assign(g.arc_count(), 0);
-  for (int a = 0; a < g.arc_count(); ++a) usable_[a] = g.capacity(a) > 0 && g.tail(a) != g.head(a);
   reachable_.assign(K, 0);
   open_.assign(K, 0);
   share_.assign(K, 0.0);
@@ -92,9 +85,7 @@ void OriginMaster::build_lp(bool route_costs) {
     if (any_open) open_row_[o] = lp_->add_row(0.0, 0.0, {level_col_}, {-1.0});
     if (any_frozen) frozen_row_[o] = lp_->add_row(1.0, 1.0);
   }
-  lp_column_.assign(columns_.size(), -1);
-  std::vector<Column> kept;
-  for (Column& c : columns_) kept.push_back(std::move(c));
+  std::vector<Column> kept = std::move(columns_);
   columns_.clear();
   lp_column_.clear();
   for (Column& c : kept) add_column(std::move(c), route_costs);
@@ -160,27 +151,26 @@ LpStatus OriginMaster::solve_with_pricing(bool route_costs) {
     for (int o = 0; o < g_.node_count(); ++o) {
       if (open_row_[o] < 0 && frozen_row_[o] < 0) continue;
       pricer_.search(o, length);
-      Column open_c{o, true, {}, 0.0}, frozen_c{o, false, {}, 0.0};
       double open_len = 0.0, frozen_len = 0.0;
       for (int k : by_origin_[o]) {
         if (!reachable_[k]) continue;
         const double dist = pricer_.distance(demands_[k].destination);
-        if (open_[k]) {
-          dual_[k] = dist;
-          open_len += demands_[k].weight * dist;
-          open_c.pieces.push_back({k, pricer_.path_to(demands_[k].destination).lanes, demands_[k].weight});
-        } else if (share_[k] > 0) {
-          frozen_len += share_[k] * dist;
-          frozen_c.pieces.push_back({k, pricer_.path_to(demands_[k].destination).lanes, share_[k]});
-        }
+        if (open_[k]) dual_[k] = dist, open_len += demands_[k].weight * dist;
+        else if (share_[k] > 0) frozen_len += share_[k] * dist;
       }
       // Reduced cost of a routing: its cost plus what it pays for capacity, less its row's
-      // dual. A routing priced in before is not added again: the LP solver judged it at its
-      // own tolerance (1e-7) and found nothing to gain.
-      if (open_row_[o] >= 0 && open_len < lp_->row_dual(open_row_[o]) - tol && known_.insert(key(open_c)).second)
-        added += add_column(std::move(open_c), route_costs) >= 0;
-      if (frozen_row_[o] >= 0 && frozen_len < lp_->row_dual(frozen_row_[o]) - tol && known_.insert(key(frozen_c)).second)
-        added += add_column(std::move(frozen_c), route_costs) >= 0;
+      // dual. The paths are read only for a routing that prices in. A routing priced in
+      // before is not added again: the LP solver judged it at its own tolerance (1e-7) and
+      // found nothing to gain.
+      for (const bool open : {true, false}) {
+        const int row = open ? open_row_[o] : frozen_row_[o];
+        if (row < 0 || !((open ? open_len : frozen_len) < lp_->row_dual(row) - tol)) continue;
+        Column c{o, open, {}, 0.0};
+        for (int k : by_origin_[o])
+          if (reachable_[k] && (open ? open_[k] != 0 : !open_[k] && share_[k] > 0))
+            c.pieces.push_back({k, pricer_.path_to(demands_[k].destination).lanes, open ? demands_[k].weight : share_[k]});
+        if (known_.insert(key(c)).second) added += add_column(std::move(c), route_costs) >= 0;
+      }
     }
     stats_.path_columns += added;
     if (added == 0) {

@@ -10,11 +10,6 @@
 namespace apportion {
 
 namespace {
-std::vector<char> usable_arcs(const FlowGraph& g) {
-  std::vector<char> u(g.arc_count());
-  for (int a = 0; a < g.arc_count(); ++a) u[a] = g.capacity(a) > 0 && g.tail(a) != g.head(a);
-  return u;
-}
 constexpr int kMaxPricingRounds = 100000;
 }  // namespace
 

@@ -11,6 +11,12 @@ namespace {
 constexpr double kInf = std::numeric_limits<double>::infinity();
 }
 
+std::vector<char> usable_arcs(const FlowGraph& g) {
+  std::vector<char> u(g.arc_count());
+  for (int a = 0; a < g.arc_count(); ++a) u[a] = g.capacity(a) > 0 && g.tail(a) != g.head(a);
+  return u;
+}
+
 PathPricer::PathPricer(const FlowGraph& g, const std::vector<char>& usable, int hop_limit)
     : n_(g.node_count()), arc_count_(g.arc_count()), hop_limit_(hop_limit) {
   for (const Lane& l : g.lanes())

@@ -19,6 +19,9 @@ struct LanePath {
   std::vector<int> lanes;  // indices into the lane list, origin to destination
 };
 
+// The arcs a path may use: in service with positive capacity, and not loops.
+std::vector<char> usable_arcs(const FlowGraph& g);
+
 class PathPricer {
  public:
   // `usable[arc]` false removes an arc (disabled or zero capacity) from every path.

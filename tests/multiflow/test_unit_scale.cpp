@@ -64,7 +64,8 @@ void require_same_answer_in_other_units(const Network& net, FairObjective object
   FairOptions opt;
   opt.objective = objective;
   const MultiflowResult base = solve_multiflow(net, opt);
-  const MultiflowResult scaled = solve_multiflow(times(net, f), opt);
+  const Network big = times(net, f);
+  const MultiflowResult scaled = solve_multiflow(big, opt);
   INFO("objective " << objective_name(objective) << ", times 1e" << k);
   REQUIRE(base.status == SolveStatus::kOptimal);
   REQUIRE(scaled.status == SolveStatus::kOptimal);
@@ -82,7 +83,7 @@ void require_same_answer_in_other_units(const Network& net, FairObjective object
       // Either way the binding arcs are full: a positive dual in the proof of a tier means
       // its demands' shares use the arc's whole capacity (complementary slackness).
       for (int a : scaled.tiers[t].binding_arcs)
-        CHECK(scaled.arcs[a].load >= (1 - 1e-9) * times(net, f).arcs[a].capacity);
+        CHECK(scaled.arcs[a].load >= (1 - 1e-9) * big.arcs[a].capacity);
       CHECK(same(base.tiers[t].level, scaled.tiers[t].level));
     }
     for (std::size_t d = 0; d < base.demands.size(); ++d) {
