@@ -101,7 +101,7 @@ class Engine {
   void zero_tier(MultiflowResult& r, const std::vector<int>& unreachable);
   bool max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
-  bool use_origins() const { return opt_.by_origin && opt_.routing.k_paths <= 0; }
+  bool use_origins() const { return K() >= opt_.origin_rounds_from && opt_.routing.k_paths <= 0; }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
                bool& yes, MultiflowResult& r);
   bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
@@ -354,8 +354,9 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
 // (distance under the arc prices), as step 2 of fair_multiflow.h proves; the others stay
 // open, and the next round, starting from the same level, freezes more (the duals of a
 // round at an unchanged level sum to 1 over its open demands, so some are positive). Rounds
-// that end at the same level form one tier. With a few hundred rows per LP, a round costs
-// milliseconds, so no sum tests or amount search are needed to keep the rounds few.
+// that end at the same level form one tier. With one row per arc and per group of an
+// origin's demands, and the basis kept across the rounds, a round costs tens to hundreds of
+// simplex iterations, so no sum tests or amount search are needed to keep the rounds few.
 bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes) {
   OriginMaster om(g_, specs_, opt_.routing, std::vector<double>(g_.arc_count(), 1.0));
   fair.assign(K(), 0.0);
@@ -417,17 +418,15 @@ bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, st
       if (price > dual_tol && std::find(tier.binding_arcs.begin(), tier.binding_arcs.end(), a) == tier.binding_arcs.end())
         tier.binding_arcs.push_back(a), tier.binding_prices.push_back(price);
     }
-    std::vector<double> shares;
     for (int k : freeze) {
       frozen[k] = 1;
       fair[k] = om.reachable(k) ? std::min(specs_[k].amount, specs_[k].weight * tier.level) : 0.0;
-      shares.push_back(fair[k]);
       r.demands[k].tier = tier.index;
       tier.demands.push_back(k);
     }
     std::sort(tier.demands.begin(), tier.demands.end());
     progress_.demands_settled += static_cast<int>(freeze.size());
-    om.freeze(freeze, shares);
+    om.freeze(freeze);
   }
   if (!unreachable.empty()) zero_tier(r, unreachable);  // every demand is unreachable
   progress_.stage = "routes";
@@ -923,15 +922,16 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   MultiflowResult r = attempt(options);
   // Rounds aggregated by origin that fail (numerical trouble in their LPs) give way to the
   // per-demand rounds, with the same options otherwise.
-  if (r.status == SolveStatus::kNumericalDifficulty && rounds && options.by_origin) {
+  const bool by_origin = static_cast<long long>(r.demands.size()) >= options.origin_rounds_from && options.routing.k_paths <= 0;
+  if (r.status == SolveStatus::kNumericalDifficulty && rounds && by_origin) {
     FairOptions per_demand = options;
-    per_demand.by_origin = false;
+    per_demand.origin_rounds_from = FairOptions::kNever;
     again(r, per_demand);
   }
   if (r.status == SolveStatus::kNumericalDifficulty && rounds && !options.dual_rounds) {
     FairOptions careful = options;
     careful.dual_rounds = true;
-    careful.by_origin = false;
+    careful.origin_rounds_from = FairOptions::kNever;
     again(r, careful);
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {

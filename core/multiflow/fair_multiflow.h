@@ -31,6 +31,11 @@
 //      decides many demands at once, where the textbook method runs one LP per demand.
 // Every LP restarts from the previous basis. A round freezes at least one demand, so there
 // are at most K rounds.
+// With FairOptions::origin_rounds_from (off by default), the rounds run on the LP aggregated
+// by origin instead (origin_master.h): step 1 there, step 2 with the demands' distances
+// under the arc prices as duals, no steps 2a and 3 -- a demand with a zero dual stays open,
+// and the next round at the same level freezes more. Each round costs one row per origin
+// that froze a demand, and goes on from the last basis.
 #pragma once
 
 #include "apportion/model/network.h"

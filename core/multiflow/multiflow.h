@@ -22,6 +22,7 @@
 #pragma once
 
 #include <functional>
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -68,14 +69,18 @@ struct FairOptions {
   // unattractive once the paths outnumber the rows this many times (path_master.h); 0: every
   // path priced in stays, the method before, kept to measure against.
   double path_pool = 2.0;
-  // true: the max-min rounds run on the LP with the demands aggregated by origin
-  // (origin_master.h: one row per arc and two per origin), without sum tests or amount
-  // search. Experimental, for the benchmark (apportion-fair-bench --by-origin): each LP is
-  // small, but every round starts cold and some stall, so it is not yet faster everywhere
-  // (README, Benchmark); a failure falls back to the per-demand rounds. false (the
-  // default): the per-demand path LP (path_master.h). Fixed path sets (k_paths) always use
-  // the latter.
-  bool by_origin = false;
+  // From this many demands on, the max-min rounds run on the LP with the demands aggregated
+  // by origin (origin_master.h: one row per arc and one per group of an origin's demands,
+  // kept across the rounds), without sum tests or amount search; below it, on the per-demand
+  // path LP (path_master.h). Measured (README, Benchmark), the aggregated rounds are 2-4x
+  // faster on GtsCe, Deltacom and UsCarrier with 2,000-10,000 demands, but 2-3.5x slower on
+  // Uninett2010 and Geant2012 with their link speeds, whose many tiers each cost it a round;
+  // so the default is kNever (the per-demand rounds everywhere) and the aggregated rounds
+  // are an option (apportion-fair-bench --by-origin). 0: always aggregated. A failing
+  // aggregated solve gives way to the per-demand rounds (solve_multiflow). Fixed path sets
+  // (k_paths) always use the per-demand LP.
+  static constexpr int kNever = std::numeric_limits<int>::max();
+  int origin_rounds_from = kNever;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 

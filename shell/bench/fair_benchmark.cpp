@@ -13,9 +13,11 @@
 //   --no-amount-search  only the latter
 //
 //   --no-purge     keep every path priced in (FairOptions::path_pool 0)
-//   --by-origin    the max-min rounds on the LP with the demands aggregated by origin
-//                  (FairOptions::by_origin)
-// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin] FILE...
+//   --by-origin    the max-min rounds on the LP with the demands aggregated by origin at
+//                  every size (FairOptions::origin_rounds_from 0)
+//   --per-demand   the max-min rounds on the per-demand LP at every size, the method
+//                  before (origin_rounds_from kNever)
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] FILE...
 #include <chrono>
 #include <cstdio>
 #include <cstring>
@@ -38,20 +40,22 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 int main(int argc, char** argv) {
   bool warm_up = false, cold = false, dual_rounds = false, amount_search = true;
   double path_pool = apportion::FairOptions{}.path_pool;
-  bool by_origin = false;
+  int origin_rounds_from = apportion::FairOptions{}.origin_rounds_from;
   int first = 1;
   for (; first < argc && std::strncmp(argv[first], "--", 2) == 0; ++first) {
     if (std::strcmp(argv[first], "--warm-up") == 0) warm_up = true;
     else if (std::strcmp(argv[first], "--cold") == 0) cold = true;
-    else if (std::strcmp(argv[first], "--baseline") == 0) dual_rounds = true, amount_search = false, path_pool = 0, by_origin = false;
+    else if (std::strcmp(argv[first], "--baseline") == 0) dual_rounds = true, amount_search = false, path_pool = 0,
+                                                                   origin_rounds_from = apportion::FairOptions::kNever;
     else if (std::strcmp(argv[first], "--no-amount-search") == 0) amount_search = false;
     else if (std::strcmp(argv[first], "--no-purge") == 0) path_pool = 0;
-    else if (std::strcmp(argv[first], "--by-origin") == 0) by_origin = true;
+    else if (std::strcmp(argv[first], "--by-origin") == 0) origin_rounds_from = 0;
+    else if (std::strcmp(argv[first], "--per-demand") == 0) origin_rounds_from = apportion::FairOptions::kNever;
     else return std::fprintf(stderr, "unknown option %s\n", argv[first]), 2;
   }
   if (first >= argc) {
     std::fprintf(stderr,
-                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin] FILE...\n");
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -68,7 +72,7 @@ int main(int argc, char** argv) {
     opt.dual_rounds = dual_rounds;
     opt.amount_search = amount_search;
     opt.path_pool = path_pool;
-    opt.by_origin = by_origin;
+    opt.origin_rounds_from = origin_rounds_from;
     apportion::MultiflowResult r;
     if (warm_up) timed_solve(*loaded.network, opt, r);
     const double ms = timed_solve(*loaded.network, opt, r);

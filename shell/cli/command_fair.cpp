@@ -42,6 +42,9 @@ Options:
   --epsilon E      tradeoff: the share of fairness given up (default 0.1)
   --hop-limit H    route each demand over paths of at most H arcs
   --k-paths K      route each demand over its K shortest paths (fewest arcs) only
+  --by-origin      fair, tradeoff: run the max-min rounds on an LP with the demands
+                   aggregated by origin; the same shares, 2-4x faster on some networks
+                   with thousands of demands, slower on others (README, Benchmark)
   --paths          print each demand's paths
   --all-arcs       list arcs without load too
   --json OUT       the whole result as JSON (core/FORMAT.md)
@@ -163,7 +166,7 @@ int run_fair(int argc, char** argv) {
   const std::string cmd = argv[1];
   std::set<std::string> valued = kLoaderOptions;
   valued.insert({"epsilon", "hop-limit", "k-paths", "json", "csv", "svg"});
-  Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs", "progress"});
+  Args args = parse_args(argc, argv, 2, valued, {"help", "paths", "all-arcs", "progress", "by-origin"});
   if (args.has("help")) return std::cout << kHelp, kExitOk;
   if (usage_error(args, cmd, 1, kHelp)) return kExitBadInput;
   FairOptions opt;
@@ -177,6 +180,7 @@ int run_fair(int argc, char** argv) {
   }
   opt.routing.hop_limit = *hop;
   opt.routing.k_paths = *kp;
+  if (args.has("by-origin")) opt.origin_rounds_from = 0;
   if (auto e = args.get("epsilon")) {
     auto v = parse_number(*e);
     if (!v || *v < 0 || *v > 1) {

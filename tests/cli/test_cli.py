@@ -86,6 +86,18 @@ check("feasible --svg writes the picture for a report",
       r.returncode == 0 and svg_root.find("{http://www.w3.org/2000/svg}rect").get("fill") == "#ffffff" and
       "Rule: can every demand be met?" in svg_text and "throughput" in svg_text and "planning aid" in svg_text,
       svg_text[:300])
+# The rounds aggregated by origin give the same shares (to the LP's tolerance, 1e-7 of the
+# largest) on every demo network as the per-demand rounds; both checked by the checker.
+for d in demos:
+    pd = os.path.join(args.work, "per-demand.json")
+    bo = os.path.join(args.work, "by-origin.json")
+    r1, r2 = run("fair", d, "--json", pd), run("fair", d, "--by-origin", "--json", bo)
+    a, b = json.load(open(pd)), json.load(open(bo))
+    top = max([x["share"] for x in a["demands"]] + [1e-300])
+    check(f"fair --by-origin {os.path.basename(d)}: the same shares, checked",
+          r1.returncode == 0 and r2.returncode == 0 and b["check"]["ok"] and
+          all(abs(x["share"] - y["share"]) <= 1e-7 * top for x, y in zip(a["demands"], b["demands"])) and
+          len(a["demands"]) == len(b["demands"]), r2.stderr)
 check("fair --hop-limit 0 is a usage error", run("fair", demos[0], "--hop-limit", "0").returncode == 2)
 check("tradeoff --epsilon 2 is a usage error", run("tradeoff", demos[0], "--epsilon", "2").returncode == 2)
 

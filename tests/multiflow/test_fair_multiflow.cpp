@@ -317,8 +317,8 @@ TEST_CASE("max-min: the rounds aggregated by origin give the per-demand rounds' 
       if (rng() % 4 == 0) d.weight = 2.0;
     }
     FairOptions by_origin, per_demand;
-    by_origin.by_origin = true;
-    per_demand.by_origin = false;
+    by_origin.origin_rounds_from = 0;
+    per_demand.origin_rounds_from = FairOptions::kNever;
     const MultiflowResult a = solve_multiflow(net, by_origin), b = solve_multiflow(net, per_demand);
     INFO("instance " << i);
     REQUIRE(a.status == SolveStatus::kOptimal);
