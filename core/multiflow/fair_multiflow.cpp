@@ -36,6 +36,9 @@ bool objective_from_name(const std::string& name, FairObjective& out) {
 
 namespace {
 
+// Whether the max-min rounds of `demands` demands run on the LP aggregated by origin.
+bool rounds_by_origin(const FairOptions& o, int demands) { return demands >= o.origin_rounds_from && o.routing.k_paths <= 0; }
+
 constexpr double kInf = LpSolver::kInf;
 // The cap on a demand's growth in a saturation test, in units of its tolerance: 1e6 x 1e-9
 // = 1e-3 of its own scale, far above the LP tolerances and small enough to share.
@@ -101,7 +104,7 @@ class Engine {
   void zero_tier(MultiflowResult& r, const std::vector<int>& unreachable);
   bool max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
-  bool use_origins() const { return K() >= opt_.origin_rounds_from && opt_.routing.k_paths <= 0; }
+  bool use_origins() const { return rounds_by_origin(opt_, K()); }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
                bool& yes, MultiflowResult& r);
   bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
@@ -922,7 +925,7 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   MultiflowResult r = attempt(options);
   // Rounds aggregated by origin that fail (numerical trouble in their LPs) give way to the
   // per-demand rounds, with the same options otherwise.
-  const bool by_origin = static_cast<long long>(r.demands.size()) >= options.origin_rounds_from && options.routing.k_paths <= 0;
+  const bool by_origin = rounds_by_origin(options, static_cast<int>(r.demands.size()));
   if (r.status == SolveStatus::kNumericalDifficulty && rounds && by_origin) {
     FairOptions per_demand = options;
     per_demand.origin_rounds_from = FairOptions::kNever;

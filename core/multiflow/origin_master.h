@@ -37,7 +37,8 @@
 // Used from FairOptions::origin_rounds_from demands on (off by default); measured in the
 // README against the per-demand rounds: 2-4x faster on GtsCe, Deltacom and UsCarrier at
 // 2,000-10,000 demands, slower below 1,000 and where many tiers each cost a round (Geant2012,
-// Uninett2010 with their link speeds). Next: settle a run of amount levels in one round.
+// Uninett2010 with their link speeds), and no help at all pairs. Settling a run of amount
+// levels in one solve was tried (fewer LPs, no faster; README).
 #pragma once
 
 #include <memory>
