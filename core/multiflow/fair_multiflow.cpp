@@ -102,6 +102,12 @@ class Engine {
   bool max_min(MultiflowResult& r, std::vector<double>& fair);
   void place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std::vector<int>& unreachable, double t);
   void zero_tier(MultiflowResult& r, const std::vector<int>& unreachable);
+  // A round's open demands, the lowest of their amount levels a_k / w_k and their weights' sum.
+  struct OpenDemands {
+    std::vector<int> demands;
+    double cap = kInf, weight_sum = 0.0;
+  };
+  OpenDemands open_demands(const std::vector<char>& frozen) const;
   bool max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool use_origins() const { return rounds_by_origin(opt_, K()); }
@@ -195,6 +201,17 @@ void Engine::place_unreachable(MultiflowResult& r, std::vector<int>& freeze, std
   unreachable.clear();
 }
 
+Engine::OpenDemands Engine::open_demands(const std::vector<char>& frozen) const {
+  OpenDemands o;
+  for (int k = 0; k < K(); ++k) {
+    if (frozen[k]) continue;
+    o.demands.push_back(k);
+    o.cap = std::min(o.cap, specs_[k].amount / specs_[k].weight);
+    o.weight_sum += specs_[k].weight;
+  }
+  return o;
+}
+
 // The demands no path can serve, as a tier at level 0 after the tiers so far.
 void Engine::zero_tier(MultiflowResult& r, const std::vector<int>& unreachable) {
   Tier zero;
@@ -222,16 +239,11 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
   double no_search_from = kInf;
   for (int round = 1;; ++round) {
     progress_.round = round;
-    std::vector<int> open;
-    for (int k = 0; k < K(); ++k)
-      if (!frozen[k]) open.push_back(k);
+    const OpenDemands round_open = open_demands(frozen);
+    const std::vector<int>& open = round_open.demands;
+    const double cap_t = round_open.cap, weight_sum = round_open.weight_sum;
     if (open.empty()) break;
-    double cap_t = kInf, weight_sum = 0.0;
-    for (int k : open) {
-      cap_t = std::min(cap_t, specs_[k].amount / specs_[k].weight);
-      weight_sum += specs_[k].weight;
-      lp().set_row_bounds(master_.level_row(k), 0.0, kInf);
-    }
+    for (int k : open) lp().set_row_bounds(master_.level_row(k), 0.0, kInf);
     lp().set_cost(level, -1.0);
     lp().set_column_bounds(level, 0.0, cap_t);
     // The last round fixed shares where they stood and relaxed or enforced level rows
@@ -376,12 +388,10 @@ bool Engine::max_min_by_origin(MultiflowResult& r, std::vector<double>& fair, st
   };
   for (int round = 1;; ++round) {
     progress_.round = round;
-    std::vector<int> open;
-    for (int k = 0; k < K(); ++k)
-      if (!frozen[k]) open.push_back(k);
+    const OpenDemands round_open = open_demands(frozen);
+    const std::vector<int>& open = round_open.demands;
+    const double cap_t = round_open.cap, weight_sum = round_open.weight_sum;
     if (open.empty()) break;
-    double cap_t = kInf, weight_sum = 0.0;
-    for (int k : open) cap_t = std::min(cap_t, specs_[k].amount / specs_[k].weight), weight_sum += specs_[k].weight;
     const LpStatus s = om.raise(cap_t);
     report(om.stats().lp_solves);
     if (s != LpStatus::kOptimal) return failed(s);

@@ -21,8 +21,8 @@ OriginMaster::OriginMaster(const FlowGraph& g, const std::vector<DemandSpec>& de
     : g_(g),
       demands_(demands),
       route_length_(route_length),
-      pricer_(g, usable_arcs(g), routing.hop_limit),
-      usable_(usable_arcs(g)) {
+      usable_(usable_arcs(g)),
+      pricer_(g, usable_, routing.hop_limit) {
   const int K = static_cast<int>(demands_.size());
   reachable_.assign(K, 0);
   open_.assign(K, 0);

@@ -41,7 +41,6 @@
 // levels in one solve was tried (fewer LPs, no faster; README).
 #pragma once
 
-#include <memory>
 #include <string>
 #include <unordered_set>
 #include <vector>
@@ -114,8 +113,9 @@ class OriginMaster {
   const FlowGraph& g_;
   std::vector<DemandSpec> demands_;
   std::vector<double> route_length_;
+  std::vector<char> usable_;  // before pricer_, which is built from it
   PathPricer pricer_;
-  std::vector<char> usable_, reachable_, open_;
+  std::vector<char> reachable_, open_;
   std::vector<std::vector<int>> groups_of_origin_;
   std::vector<int> open_group_;  // per origin, -1 when none
   std::vector<Group> groups_;
