@@ -52,6 +52,11 @@ void LpSolver::set_iteration_limit(long long limit) {
                               static_cast<HighsInt>(limit > 0 ? limit : std::numeric_limits<HighsInt>::max()));
 }
 
+void LpSolver::set_feasibility_tolerance(double tolerance) {
+  impl_->highs.setOptionValue("primal_feasibility_tolerance", tolerance);
+  impl_->highs.setOptionValue("dual_feasibility_tolerance", tolerance);
+}
+
 void LpSolver::set_cost(int column, double cost) { impl_->highs.changeColCost(column, cost); }
 void LpSolver::set_column_bounds(int column, double lower, double upper) {
   impl_->highs.changeColBounds(column, lower, upper);

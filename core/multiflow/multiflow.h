@@ -141,6 +141,22 @@ struct MultiflowStats {
   int retries = 0;           // times the network was solved again another way (solve_multiflow)
 };
 
+// Proven bounds on each demand's exact weighted max-min fair share, for any allocation
+// (fair_certificate.h); filled when asked for (apportion fair --certify).
+struct FairnessCertificate {
+  SolveStatus status = SolveStatus::kNotSolved;
+  std::string message;
+  std::vector<double> lower, upper;  // per demand, bounds on its exact max-min fair share
+  std::vector<double> error;         // per demand: max(upper - share, share - lower, 0)
+  double max_error = 0.0;            // largest error, in the network's unit
+  double max_relative_error = 0.0;   // largest error / largest share
+  int worst_demand = -1;
+  int levels = 0;                    // levels of the allocation that were certified
+  int witnesses_used = 0, witnesses_refused = 0;
+  double witness_tolerance = 0.0;    // the most an accepted witness missed a target or capacity by, relative
+  MultiflowStats stats;              // of the certificate's own LPs
+};
+
 struct MultiflowResult {
   SolveStatus status = SolveStatus::kNotSolved;
   std::string message;
@@ -168,6 +184,7 @@ struct MultiflowResult {
 
   MultiflowCheck check;
   MultiflowStats stats;
+  FairnessCertificate fairness;  // kNotSolved unless asked for
 };
 
 }  // namespace apportion

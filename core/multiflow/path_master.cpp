@@ -165,9 +165,18 @@ int PathMaster::price() {
 LpStatus PathMaster::solve(LpSolver::Method first) {
   for (int round = 0; round < kMaxPricingRounds; ++round) {
     // Later rounds follow new path columns only: primal simplex (see LpSolver::set_method).
-    lp_.set_method(round == 0 ? first : LpSolver::Method::kPrimal);
-    const LpStatus s = lp_.solve();
+    const LpSolver::Method method = round == 0 ? first : LpSolver::Method::kPrimal;
+    lp_.set_method(method);
+    LpStatus s = lp_.solve();
     ++stats_.lp_solves;
+    // HiGHS's primal simplex can end "infeasible" from a feasible point, with no primal
+    // infeasibility left in its log (seen in the fairness certificate's LPs, GtsCe with
+    // 2,000 demands); the dual simplex, from the same basis, settles it.
+    if (method == LpSolver::Method::kPrimal && (s == LpStatus::kInfeasible || s == LpStatus::kFailed)) {
+      lp_.set_method(LpSolver::Method::kDual);
+      s = lp_.solve();
+      ++stats_.lp_solves;
+    }
     stats_.simplex_iterations = lp_.total_iterations();
     if (s == LpStatus::kInfeasible && !dropped_.empty()) {
       // A change that moved off the last solution (the amount search's tests) can need a

@@ -30,6 +30,10 @@ std::string joined_arcs(const Network& net, const std::vector<int>& v) {
 }
 // JSON has no infinity: absent values are written as null.
 json number_or_null(double v, bool present) { return present && std::isfinite(v) ? json(v) : json(nullptr); }
+// Per-demand bounds are written when a certificate ran to the end (fair_certificate.h).
+bool certified(const MultiflowResult& r) {
+  return r.fairness.status == SolveStatus::kOptimal && r.fairness.lower.size() == r.demands.size();
+}
 }  // namespace
 
 std::string multiflow_json(const Network& net, const MultiflowResult& r) {
@@ -91,6 +95,10 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
               {"cut_source_side", node_ids(net, s.cut_source_side)},
               {"paths", paths}};
     if (!d.label.empty()) o["label"] = d.label;
+    if (certified(r))
+      o["fair_share_bounds"] = {{"lower", r.fairness.lower[k]},
+                                {"upper", number_or_null(r.fairness.upper[k], true)},
+                                {"error", number_or_null(r.fairness.error[k], true)}};
     demands.push_back(std::move(o));
   }
   root["demands"] = demands;
@@ -108,6 +116,19 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
                    {"max_capacity_violation", r.check.max_capacity_violation},
                    {"max_conservation_violation", r.check.max_conservation_violation},
                    {"max_share_error", r.check.max_share_error}};
+  if (r.fairness.status != SolveStatus::kNotSolved) {
+    const FairnessCertificate& c = r.fairness;
+    json f = {{"status", status_name(c.status)},
+              {"max_error", number_or_null(c.max_error, certified(r))},
+              {"max_relative_error", number_or_null(c.max_relative_error, certified(r))},
+              {"worst_demand", c.worst_demand >= 0 ? json(net.demands[c.worst_demand].id) : json(nullptr)},
+              {"levels", c.levels},
+              {"witness_tolerance", c.witness_tolerance},
+              {"lp_solves", c.stats.lp_solves},
+              {"simplex_iterations", c.stats.simplex_iterations}};
+    if (!c.message.empty()) f["message"] = c.message;
+    root["fairness_certificate"] = f;
+  }
   root["stats"] = {{"lp_solves", r.stats.lp_solves}, {"simplex_iterations", r.stats.simplex_iterations},
                    {"pricing_rounds", r.stats.pricing_rounds}, {"path_columns", r.stats.path_columns},
                    {"paths_dropped", r.stats.paths_dropped}, {"saturation_tests", r.stats.saturation_tests}};
@@ -117,6 +138,7 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
 std::string multiflow_demands_csv(const Network& net, const MultiflowResult& r) {
   std::vector<CsvRow> rows{{"id", "label", "origin", "destination", "amount", "weight", "share", "percent_of_amount",
                             "normalised", "tier", "limited_by_amount", "binding_arcs"}};
+  if (certified(r)) rows[0].insert(rows[0].end(), {"fair_share_lower", "fair_share_upper", "fair_share_error"});
   for (std::size_t k = 0; k < r.demands.size(); ++k) {
     const Demand& d = net.demands[k];
     const DemandShare& s = r.demands[k];
@@ -124,6 +146,11 @@ std::string multiflow_demands_csv(const Network& net, const MultiflowResult& r) 
                     d.amount ? format_number(*d.amount) : "max", format_number(d.weight), format_number(s.share),
                     s.percent_of_amount >= 0 ? format_number(s.percent_of_amount) : "", format_number(s.normalised),
                     std::to_string(s.tier), s.limited_by_amount ? "true" : "false", joined_arcs(net, s.binding_arcs)});
+    if (certified(r)) {
+      const FairnessCertificate& c = r.fairness;
+      auto text = [](double v) { return std::isfinite(v) ? format_number(v) : std::string(); };
+      rows.back().insert(rows.back().end(), {text(c.lower[k]), text(c.upper[k]), text(c.error[k])});
+    }
   }
   return write_csv(rows);
 }

@@ -17,7 +17,10 @@
 //                  every size (FairOptions::origin_rounds_from 0)
 //   --per-demand   the max-min rounds on the per-demand LP at every size, the method
 //                  before (origin_rounds_from kNever)
-// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] FILE...
+//   --certify      also certify the shares (fair_certificate.h) and report on standard
+//                  error: milliseconds, LPs, simplex iterations, levels and the largest
+//                  error bound relative to the largest share
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] [--certify] FILE...
 #include <chrono>
 #include <cstdio>
 #include <cstring>
@@ -25,6 +28,7 @@
 #include <sstream>
 
 #include "apportion/formats/network_json.h"
+#include "apportion/multiflow/fair_certificate.h"
 #include "apportion/multiflow/fair_multiflow.h"
 
 namespace {
@@ -38,7 +42,7 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 }  // namespace
 
 int main(int argc, char** argv) {
-  bool warm_up = false, cold = false, dual_rounds = false, amount_search = true;
+  bool warm_up = false, cold = false, dual_rounds = false, amount_search = true, certify = false;
   double path_pool = apportion::FairOptions{}.path_pool;
   int origin_rounds_from = apportion::FairOptions{}.origin_rounds_from;
   int first = 1;
@@ -51,11 +55,12 @@ int main(int argc, char** argv) {
     else if (std::strcmp(argv[first], "--no-purge") == 0) path_pool = 0;
     else if (std::strcmp(argv[first], "--by-origin") == 0) origin_rounds_from = 0;
     else if (std::strcmp(argv[first], "--per-demand") == 0) origin_rounds_from = apportion::FairOptions::kNever;
+    else if (std::strcmp(argv[first], "--certify") == 0) certify = true;
     else return std::fprintf(stderr, "unknown option %s\n", argv[first]), 2;
   }
   if (first >= argc) {
     std::fprintf(stderr,
-                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] FILE...\n");
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] [--certify] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -89,6 +94,16 @@ int main(int argc, char** argv) {
       apportion::MultiflowResult other;
       timed_solve(*loaded.network, o, other);
       cold_iterations = other.stats.simplex_iterations;
+    }
+    if (certify) {
+      std::vector<double> shares;
+      for (const auto& d : r.demands) shares.push_back(d.share);
+      const auto start = std::chrono::steady_clock::now();
+      const apportion::FairnessCertificate c = apportion::certify_max_min(*loaded.network, shares, opt.routing);
+      const double cms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count();
+      std::fprintf(stderr, "%s certificate: %s, %.3f ms, %d LPs, %lld iterations, %d levels, witnesses %d used %d refused (tolerance %.2g), largest error %.3g of the largest share\n",
+                   argv[i], apportion::status_name(c.status), cms, c.stats.lp_solves, c.stats.simplex_iterations, c.levels,
+                   c.witnesses_used, c.witnesses_refused, c.witness_tolerance, c.max_relative_error);
     }
     std::printf("%s %.3f %d %lld %lld %zu", argv[i], ms, r.stats.lp_solves, r.stats.simplex_iterations,
                 cold_iterations, r.tiers.size());

@@ -1,0 +1,371 @@
+// Fairness certificate; see fair_certificate.h for the model and the two facts it rests on.
+#include "apportion/multiflow/fair_certificate.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "apportion/flow/flow_graph.h"
+#include "apportion/multiflow/path_master.h"
+#include "apportion/multiflow/path_pricing.h"
+#include "apportion/multiflow/unit_scale.h"
+
+namespace apportion {
+
+namespace {
+
+constexpr double kInf = LpSolver::kInf;
+// Normalised shares within this relative gap are one level of the allocation.
+constexpr double kLevelGap = 1e-7;
+// A witness may miss a target, or exceed a capacity, by this much relative to it (to
+// max(1, it) in the certificate's unit, where the largest share is in [1, 2)); beyond, it
+// proves nothing and is not used. Measured misses: 1e-10 to 2e-9 (README, Benchmark).
+constexpr double kWitnessSlack = 1e-6;
+// The LPs' feasibility tolerance, tighter than HiGHS's default 1e-7: a witness misses its
+// targets by about this much, and the bounds hold to it. In the certificate's unit the
+// largest share is in [1, 2), so it is relative to the shares.
+constexpr double kLpTolerance = 1e-9;
+// Room below a share that only steers an LP (the witness's first step, the level test):
+// the point the last LP reached meets the capacities only to its tolerance, and a share
+// held there exactly can leave the next LP infeasible by that much.
+constexpr double kRoom = 100 * kLpTolerance;
+
+class Certifier {
+ public:
+  Certifier(const Network& scaled, const std::vector<double>& shares, const RoutingOptions& routing)
+      : g_(FlowGraph::from_network(scaled)),
+        specs_(make_specs(scaled)),
+        shares_(shares),
+        routing_(routing),
+        usable_(usable_arcs(g_)),
+        master_(g_, specs_, routing, std::vector<double>(g_.arc_count(), 1.0)),
+        pricer_(g_, usable_, routing.k_paths > 0 ? 0 : routing.hop_limit) {
+    master_.lp().set_feasibility_tolerance(kLpTolerance);
+    shortfall_row_.assign(K(), 0);
+  }
+
+  // Fills c.lower and c.upper (in the internal unit) with what holds, even after a failure.
+  bool run(FairnessCertificate& c) {
+    const bool done = certify(c);
+    c.lower = lower_;
+    c.upper = upper_;
+    c.witness_tolerance = tolerance_;
+    return done;
+  }
+
+ private:
+  bool certify(FairnessCertificate& c);
+  static std::vector<DemandSpec> make_specs(const Network& net) {
+    std::vector<DemandSpec> s;
+    for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(kInf), d.weight});
+    return s;
+  }
+  int K() const { return static_cast<int>(specs_.size()); }
+  LpSolver& lp() { return master_.lp(); }
+  // `last_try` false: a failure is left to the caller to retry another way (no status set).
+  bool solve(LpSolver::Method m, FairnessCertificate& c, bool last_try = true);
+  // All level rows off, the level fixed at 0, every cost 0; share bounds [lo, hi].
+  void reset();
+  void bounds(int k, double lo, double hi) {
+    lp().set_column_bounds(master_.share_column(k), std::min(lo, hi), hi);
+  }
+  // The witness at level tau (kInf: above every level); raises `lower_` where it holds.
+  bool witness(double tau, FairnessCertificate& c);
+  // Upper bounds from the last LP's capacity duals, recomputed by shortest paths.
+  void upper_from_duals();
+  // The level's demands without a tight upper bound: an LP maximising their sum.
+  bool test_level(const std::vector<int>& level, FairnessCertificate& c);
+  bool loose(int k) const {
+    return !std::isfinite(upper_[k]) || upper_[k] - lower_[k] > 1e-9 * std::max(1.0, upper_[k]);
+  }
+
+  FlowGraph g_;
+  std::vector<DemandSpec> specs_;
+  std::vector<double> shares_;
+  RoutingOptions routing_;
+  std::vector<char> usable_;
+  PathMaster master_;
+  PathPricer pricer_;
+  std::vector<double> lower_, upper_;
+  bool solved_ = false;              // the LP holds a solution
+  std::vector<char> shortfall_row_;  // level rows set to f_k + U_k s >= U_k (the witness's step (a))
+  double tolerance_ = 0.0;           // the most any accepted witness missed by, relative
+};
+
+void Certifier::reset() {
+  lp().set_cost(master_.level_column(), 0.0);
+  lp().set_column_bounds(master_.level_column(), 0.0, 0.0);
+  for (int k = 0; k < K(); ++k) {
+    lp().set_cost(master_.share_column(k), 0.0);
+    lp().set_row_bounds(master_.level_row(k), -kInf, kInf);
+    if (shortfall_row_[k]) {
+      lp().set_coefficient(master_.level_row(k), master_.level_column(), -specs_[k].weight);
+      shortfall_row_[k] = 0;
+    }
+  }
+}
+
+bool Certifier::solve(LpSolver::Method m, FairnessCertificate& c, bool last_try) {
+  LpStatus s = master_.solve(m);
+  // HiGHS's primal simplex can end "infeasible" from a feasible start (seen with no primal
+  // infeasibility left, GtsCe with 2,000 demands); every LP here is feasible, so such an
+  // answer is retried with the dual simplex, then from scratch.
+  if (s != LpStatus::kOptimal) s = master_.solve(LpSolver::Method::kDual);
+  if (s != LpStatus::kOptimal) {
+    lp().set_hot_start(false);
+    s = master_.solve(LpSolver::Method::kDual);
+    lp().set_hot_start(true);
+  }
+  c.stats = master_.stats();
+  solved_ = s == LpStatus::kOptimal;
+  if (solved_ || !last_try) return solved_;
+  c.status = SolveStatus::kNumericalDifficulty;
+  c.message = std::string("a certificate LP ended '") + lp_status_name(s) + "' (" + lp().last_message() + ")";
+  return false;
+}
+
+bool Certifier::witness(double tau, FairnessCertificate& c) {
+  // Demands whose upper bound lies below the level get it in full; the others rise together.
+  std::vector<char> below(K(), 0);
+  bool any_below = false, any_rising = false;
+  for (int k = 0; k < K(); ++k) {
+    if (!master_.reachable(k)) continue;
+    below[k] = std::isfinite(upper_[k]) && (tau == kInf || upper_[k] <= specs_[k].weight * tau * (1.0 + 1e-9));
+    any_below |= below[k] != 0;
+    any_rising |= below[k] == 0;
+  }
+  // The last LP's shares: a demand below the level keeps at least its share there, so that
+  // the last solution stays feasible and the primal simplex goes on from it.
+  std::vector<double> last(K(), 0.0);
+  if (solved_)
+    for (int k = 0; k < K(); ++k) last[k] = lp().value(master_.share_column(k));
+  reset();
+  std::vector<double> reached(K(), 0.0);
+  if (any_below) {
+    // (a) every demand below the level to its upper bound, or as near as they all can:
+    // minimise s with f_k + U_k s >= U_k (the level column and rows serve as s and these
+    // rows), so that a shortfall the capacities force is shared out relatively rather than
+    // left on a few demands (the upper bounds stand a little above the fair shares, within
+    // the LPs' tolerance, and a thousand of them together can ask 1e-7 more than fits).
+    lp().set_cost(master_.level_column(), 1.0);
+    lp().set_column_bounds(master_.level_column(), 0.0, 1.0);
+    for (int k = 0; k < K(); ++k) {
+      if (!master_.reachable(k)) continue;
+      bounds(k, below[k] ? std::max(0.0, std::min(last[k], upper_[k]) - kRoom * std::max(1.0, upper_[k])) : 0.0,
+             below[k] ? upper_[k] : specs_[k].amount);
+      if (!below[k]) continue;
+      lp().set_coefficient(master_.level_row(k), master_.level_column(), upper_[k]);
+      lp().set_row_bounds(master_.level_row(k), upper_[k], kInf);
+      shortfall_row_[k] = 1;
+    }
+    if (!solve(LpSolver::Method::kDual, c)) return false;
+    if (lp().value(master_.level_column()) > kWitnessSlack) return ++c.witnesses_refused, true;
+    for (int k = 0; k < K(); ++k) {
+      if (!below[k]) continue;
+      reached[k] = std::min(lp().value(master_.share_column(k)), upper_[k]);
+      bounds(k, reached[k], upper_[k]);
+    }
+    reset();
+    for (int k = 0; k < K(); ++k)
+      if (below[k]) bounds(k, reached[k], upper_[k]);
+  }
+  // (b) the others rise to the highest common level they can reach.
+  double theta = kInf;
+  if (any_rising) {
+    lp().set_cost(master_.level_column(), -1.0);
+    lp().set_column_bounds(master_.level_column(), 0.0, kInf);
+    for (int k = 0; k < K(); ++k) {
+      if (!master_.reachable(k) || below[k]) continue;
+      bounds(k, 0.0, specs_[k].amount);
+      lp().set_row_bounds(master_.level_row(k), 0.0, kInf);  // f_k - w_k t >= 0
+    }
+    if (!solve(LpSolver::Method::kPrimal, c, false)) {
+      // The point reached in (a) meets the capacities only to the LP's tolerance; held there
+      // exactly it can leave this LP infeasible by as much (seen: 1.3e-7, GtsCe with 2,000
+      // demands). Again with ten times the LP's tolerance as room; the check below counts
+      // what that costs.
+      for (int k = 0; k < K(); ++k)
+        if (below[k]) bounds(k, std::max(0.0, reached[k] - 10 * kLpTolerance * std::max(1.0, upper_[k])), upper_[k]);
+      if (!solve(LpSolver::Method::kDual, c)) return false;
+    }
+    theta = lp().value(master_.level_column());
+  }
+  // The witness, recomputed from its path flows: its shares against their targets and its
+  // loads against the capacities. What it misses by, relative, is the tolerance to which
+  // the lower bounds it proves hold (tolerance_, reported with the certificate).
+  std::vector<double> got(K(), 0.0), load(g_.arc_count(), 0.0);
+  for (const MasterPath& p : master_.paths()) {
+    const double x = std::max(0.0, lp().value(p.column));
+    got[p.demand] += x;
+    for (int l : p.lanes) load[master_.lanes()[l].arc] += x;
+  }
+  double missed = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a)
+    if (load[a] > g_.capacity(a)) missed = std::max(missed, (load[a] - g_.capacity(a)) / std::max(1.0, g_.capacity(a)));
+  for (int k = 0; k < K(); ++k) {
+    if (!master_.reachable(k)) continue;
+    const double target = below[k] ? upper_[k] : specs_[k].weight * theta;
+    if (got[k] < target) missed = std::max(missed, (target - got[k]) / std::max(1.0, target));
+  }
+  if (missed > kWitnessSlack) return ++c.witnesses_refused, true;
+  tolerance_ = std::max(tolerance_, missed);
+  ++c.witnesses_used;
+  for (int k = 0; k < K(); ++k)
+    if (master_.reachable(k)) lower_[k] = std::max(lower_[k], std::min(specs_[k].weight * theta, upper_[k]));
+  if (any_rising) upper_from_duals();
+  return true;
+}
+
+namespace {
+// Neumaier's compensated sum: the error stays within 2 units in the last place of the sum of
+// magnitudes, whatever the number of terms (N. Higham, "Accuracy and Stability of Numerical
+// Algorithms", 2nd ed., 2002, section 4.3).
+struct CompensatedSum {
+  double sum = 0.0, carry = 0.0;
+  void add(double x) {
+    const double t = sum + x;
+    carry += std::abs(sum) >= std::abs(x) ? (sum - t) + x : (x - t) + sum;
+    sum = t;
+  }
+  double value() const { return sum + carry; }
+};
+}  // namespace
+
+void Certifier::upper_from_duals() {
+  std::vector<double> y(g_.arc_count(), 0.0);
+  double largest = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a) {
+    const int row = master_.capacity_row(a);
+    // "<=" rows have duals <= 0 at a minimum; any y >= 0 gives a valid bound, so clip.
+    if (row >= 0) y[a] = std::max(0.0, -lp().row_dual(row)), largest = std::max(largest, y[a]);
+  }
+  // Duals within 1e-9 of the largest are rounding noise of a zero: dropped (again any y >= 0
+  // is valid). Kept, they give demands tiny distances d_k, and an upper bound
+  // L_k + G / d_k that magnifies every error in G by 1 / d_k.
+  CompensatedSum capacity_value;
+  for (int a = 0; a < g_.arc_count(); ++a) {
+    if (y[a] < 1e-9 * largest) y[a] = 0.0;
+    capacity_value.add(g_.capacity(a) * y[a]);
+  }
+  if (!(capacity_value.value() > 0)) return;
+  // d_k(y): the shortest allowed path of each demand under y.
+  std::vector<double> dist(K(), kInf);
+  if (routing_.k_paths > 0) {
+    for (const MasterPath& p : master_.paths()) {
+      double len = 0.0;
+      for (int l : p.lanes) len += y[master_.lanes()[l].arc];
+      dist[p.demand] = std::min(dist[p.demand], len);
+    }
+  } else {
+    std::vector<std::vector<int>> by_origin(g_.node_count());
+    for (int k = 0; k < K(); ++k)
+      if (master_.reachable(k)) by_origin[specs_[k].origin].push_back(k);
+    for (int o = 0; o < g_.node_count(); ++o) {
+      if (by_origin[o].empty()) continue;
+      pricer_.search(o, y);
+      for (int k : by_origin[o]) dist[k] = pricer_.distance(specs_[k].destination);
+    }
+  }
+  CompensatedSum carried;
+  for (int k = 0; k < K(); ++k)
+    if (std::isfinite(dist[k]) && lower_[k] > 0) carried.add(lower_[k] * dist[k]);
+  // G = sum_e c_e y_e - sum_j L_j d_j, made safe against rounding: each distance is a sum
+  // along a path of at most n - 1 arcs, each product and sum rounds once more, so (n + 4)
+  // units in the last place of both sums bound it, doubled for margin. (The witnesses'
+  // own tolerance is not added: it is reported, and the bounds hold to it.)
+  constexpr double kUnit = std::numeric_limits<double>::epsilon() / 2;
+  const double margin = 2.0 * (g_.node_count() + 4) * kUnit * (capacity_value.value() + carried.value());
+  const double gap = std::max(capacity_value.value() - carried.value(), 0.0) + margin;
+  for (int k = 0; k < K(); ++k)
+    if (std::isfinite(dist[k]) && dist[k] > 0)
+      upper_[k] = std::min(upper_[k], (lower_[k] + gap / dist[k]) * (1.0 + 4.0 * kUnit));
+}
+
+bool Certifier::test_level(const std::vector<int>& level, FairnessCertificate& c) {
+  std::vector<int> open;
+  for (int k : level)
+    if (loose(k)) open.push_back(k);
+  if (open.empty()) return true;
+  // Every demand at or above its lower bound, or its last share where that is lower (the
+  // LP's tolerance), so that the last solution stays feasible. (Any LP gives valid bounds:
+  // they rest on its duals and on the proven lower bounds alone.)
+  std::vector<double> last(K(), 0.0);
+  for (int k = 0; k < K(); ++k) last[k] = lp().value(master_.share_column(k));
+  reset();
+  for (int k = 0; k < K(); ++k)
+    if (master_.reachable(k))
+      bounds(k, std::max(0.0, std::min(lower_[k], last[k]) - kRoom * std::max(1.0, lower_[k])), specs_[k].amount);
+  for (int k : open) lp().set_cost(master_.share_column(k), -1.0);
+  if (!solve(LpSolver::Method::kPrimal, c)) return false;
+  upper_from_duals();
+  return true;
+}
+
+bool Certifier::certify(FairnessCertificate& c) {
+  lower_.assign(K(), 0.0);
+  upper_.assign(K(), 0.0);
+  for (int k = 0; k < K(); ++k) upper_[k] = master_.reachable(k) ? specs_[k].amount : 0.0;
+  // The allocation's levels: its demands below their amounts, by normalised share.
+  std::vector<int> rising;
+  for (int k = 0; k < K(); ++k)
+    if (master_.reachable(k) && shares_[k] < specs_[k].amount * (1.0 - kLevelGap)) rising.push_back(k);
+  std::sort(rising.begin(), rising.end(), [&](int a, int b) {
+    return shares_[a] / specs_[a].weight < shares_[b] / specs_[b].weight;
+  });
+  std::vector<std::vector<int>> levels;
+  double last = -1.0;
+  for (int k : rising) {
+    const double v = shares_[k] / specs_[k].weight;
+    if (levels.empty() || v > last * (1.0 + kLevelGap) + 1e-300) levels.push_back({}), last = v;
+    levels.back().push_back(k);
+  }
+  for (const std::vector<int>& level : levels) {
+    double tau = 0.0;
+    for (int k : level) tau = std::max(tau, shares_[k] / specs_[k].weight);
+    if (!witness(tau, c)) return false;
+    if (!test_level(level, c)) return false;
+    ++c.levels;
+  }
+  // The demands at their amounts above the top level.
+  return witness(kInf, c);
+}
+
+}  // namespace
+
+FairnessCertificate certify_max_min(const Network& net, const std::vector<double>& shares, const RoutingOptions& routing) {
+  FairnessCertificate c;
+  if (net.demands.empty() || shares.size() != net.demands.size()) {
+    c.status = SolveStatus::kBadInput;
+    c.message = net.demands.empty() ? "the network has no demands" : "one share per demand is needed";
+    return c;
+  }
+  // The certificate's unit: the largest share in [1, 2), so that the LP's absolute
+  // tolerance is relative to the shares (a power of two: exact both ways).
+  double largest_share = 0.0;
+  for (double v : shares) largest_share = std::max(largest_share, std::abs(v));
+  int exponent = 0;
+  std::frexp(largest_share, &exponent);
+  const double scale = largest_share > 0 && std::isfinite(largest_share) ? std::ldexp(1.0, exponent - 1) : unit_scale(net);
+  const Network scaled = scaled_network(net, scale);
+  std::vector<double> s(shares.size());
+  for (std::size_t k = 0; k < shares.size(); ++k) s[k] = shares[k] / scale;
+  Certifier cert(scaled, s, routing);
+  const bool done = cert.run(c);
+  if (done) c.status = SolveStatus::kOptimal;
+  const int K = static_cast<int>(shares.size());
+  double largest = 1e-300;
+  for (int k = 0; k < K; ++k) {
+    c.lower[k] *= scale;
+    c.upper[k] *= scale;
+    largest = std::max(largest, std::abs(shares[k]));
+  }
+  c.error.assign(K, 0.0);
+  for (int k = 0; k < K; ++k) {
+    c.error[k] = std::max({c.upper[k] - shares[k], shares[k] - c.lower[k], 0.0});
+    if (c.worst_demand < 0 || c.error[k] > c.max_error) c.max_error = c.error[k], c.worst_demand = k;
+  }
+  c.max_relative_error = c.max_error / largest;
+  return c;
+}
+
+}  // namespace apportion
