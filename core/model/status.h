@@ -2,6 +2,8 @@
 // never throw through their API; a result whose status is not kOptimal carries no flows.
 #pragma once
 
+#include <string>
+
 namespace apportion {
 
 enum class SolveStatus {
@@ -23,6 +25,14 @@ inline const char* status_name(SolveStatus s) {
     case SolveStatus::kNotSolved: return "not solved";
   }
   return "unknown";
+}
+
+// The status with this name (status_name's inverse); false when there is none.
+inline bool status_from_name(const std::string& name, SolveStatus& out) {
+  for (SolveStatus s : {SolveStatus::kOptimal, SolveStatus::kInfeasible, SolveStatus::kUnbounded, SolveStatus::kBadInput,
+                        SolveStatus::kNumericalDifficulty, SolveStatus::kNotSolved})
+    if (name == status_name(s)) return out = s, true;
+  return false;
 }
 
 }  // namespace apportion

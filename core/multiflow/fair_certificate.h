@@ -31,8 +31,8 @@
 // the witness's shares and loads from its path flows, and every upper bound from y by
 // shortest paths (path_pricing.h), so an LP answer that is wrong makes the bounds looser or
 // the certificate fail, never wrong beyond the stated tolerance. The witness's first step
-// minimises a common relative shortfall s (f_k + U_k s >= U_k) rather than the sum, so that
-// the little the upper bounds together ask beyond the capacities is shared out.
+// minimises the largest shortfall per unit of weight rather than the sum, so that the little
+// the upper bounds together ask beyond the capacities is shared out.
 // Tolerance: the LPs run in a unit where the largest share is in [1, 2), with a feasibility
 // tolerance of 1e-9. A witness meets its targets and the capacities to about that (measured:
 // 1e-10 to 2e-9 relative); what it misses by is reported as `witness_tolerance`, and the
@@ -57,6 +57,10 @@ namespace apportion {
 // from them. kBadInput when the sizes disagree or the network has no demands;
 // kNumericalDifficulty when an LP fails (the bounds found so far are kept, and still hold).
 FairnessCertificate certify_max_min(const Network& net, const std::vector<double>& shares,
+                                    const RoutingOptions& routing = {});
+// The same for a solved result, whose paths start the certificate's LPs (faster; the bounds
+// are the same kind of proof, on the result's shares).
+FairnessCertificate certify_max_min(const Network& net, const MultiflowResult& result,
                                     const RoutingOptions& routing = {});
 
 }  // namespace apportion

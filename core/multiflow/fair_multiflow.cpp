@@ -10,6 +10,7 @@
 #include "apportion/flow/flow_graph.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/tolerance.h"
+#include "apportion/multiflow/fair_certificate.h"
 #include "apportion/multiflow/origin_master.h"
 #include "apportion/multiflow/path_master.h"
 #include "apportion/multiflow/unit_scale.h"
@@ -946,6 +947,17 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     careful.dual_rounds = true;
     careful.origin_rounds_from = FairOptions::kNever;
     again(r, careful);
+  }
+  if (r.status == SolveStatus::kOptimal && options.certify && options.objective == FairObjective::kMaxMinFair) {
+    if (options.on_progress) {
+      SolveProgress p;
+      p.stage = "proving fairness";
+      p.demands = static_cast<int>(r.demands.size());
+      p.demands_settled = p.demands;
+      p.lp_solves = r.stats.lp_solves;
+      options.on_progress(p);
+    }
+    r.fairness = certify_max_min(net, r, options.routing);
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {
     // Say what makes this network hard, and what to do about it: the LP solver's tolerances

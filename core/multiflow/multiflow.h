@@ -81,6 +81,9 @@ struct FairOptions {
   // (k_paths) always use the per-demand LP.
   static constexpr int kNever = std::numeric_limits<int>::max();
   int origin_rounds_from = kNever;
+  // kMaxMinFair: after the solve, prove each share with the fairness certificate
+  // (fair_certificate.h) into MultiflowResult::fairness; 1.5-4x the solve's time.
+  bool certify = false;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };
 
@@ -155,6 +158,7 @@ struct FairnessCertificate {
   int witnesses_used = 0, witnesses_refused = 0;
   double witness_tolerance = 0.0;    // the most an accepted witness missed a target or capacity by, relative
   MultiflowStats stats;              // of the certificate's own LPs
+  double seconds = 0.0;              // its time
 };
 
 struct MultiflowResult {

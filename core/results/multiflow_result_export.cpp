@@ -125,7 +125,8 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
               {"levels", c.levels},
               {"witness_tolerance", c.witness_tolerance},
               {"lp_solves", c.stats.lp_solves},
-              {"simplex_iterations", c.stats.simplex_iterations}};
+              {"simplex_iterations", c.stats.simplex_iterations},
+              {"seconds", c.seconds}};
     if (!c.message.empty()) f["message"] = c.message;
     root["fairness_certificate"] = f;
   }

@@ -2,6 +2,7 @@
 #include "apportion/results/multiflow_result_import.h"
 
 #include <algorithm>
+#include <limits>
 #include <nlohmann/json.hpp>
 #include <unordered_map>
 
@@ -97,11 +98,7 @@ std::optional<MultiflowResult> read_multiflow_json(const Network& net, const std
   const std::string objective = text_of(root, "objective");
   if (!objective_from_name(objective, r.objective)) return give_up("unknown objective '" + objective + "'");
   const std::string status = text_of(root, "status");
-  bool known = false;
-  for (SolveStatus s : {SolveStatus::kOptimal, SolveStatus::kInfeasible, SolveStatus::kUnbounded, SolveStatus::kBadInput,
-                        SolveStatus::kNumericalDifficulty, SolveStatus::kNotSolved})
-    if (status == status_name(s)) r.status = s, known = true;
-  if (!known) return give_up("unknown status '" + status + "'");
+  if (!status_from_name(status, r.status)) return give_up("unknown status '" + status + "'");
   if (r.status != SolveStatus::kOptimal) {
     r.message = text_of(root, "message");
     return r;
@@ -187,6 +184,32 @@ std::optional<MultiflowResult> read_multiflow_json(const Network& net, const std
       !rd.number(check, "max_conservation_violation", r.check.max_conservation_violation, 0) ||
       !rd.number(check, "max_share_error", r.check.max_share_error, 0))
     return give_up(rd.error);
+  // The fairness certificate, when the result carries one (apportion fair --certify).
+  if (auto f = root.find("fairness_certificate"); f != root.end() && f->is_object()) {
+    FairnessCertificate& c = r.fairness;
+    const std::string status = text_of(*f, "status");
+    if (!status_from_name(status, c.status)) return give_up("the fairness certificate's status is not known");
+    c.message = text_of(*f, "message");
+    const std::string worst = text_of(*f, "worst_demand");
+    if (auto k = rd.demands.find(worst); k != rd.demands.end()) c.worst_demand = k->second;
+    if (!rd.number(*f, "max_error", c.max_error, 0) || !rd.number(*f, "max_relative_error", c.max_relative_error, 0) ||
+        !rd.number(*f, "witness_tolerance", c.witness_tolerance, 0) || !rd.number(*f, "seconds", c.seconds, 0))
+      return give_up(rd.error);
+    c.levels = count_of<int>(*f, "levels");
+    c.stats.lp_solves = count_of<int>(*f, "lp_solves");
+    c.stats.simplex_iterations = count_of<long long>(*f, "simplex_iterations");
+    if (c.status == SolveStatus::kOptimal) {
+      const double inf = std::numeric_limits<double>::infinity();
+      c.lower.assign(net.demands.size(), 0.0), c.upper.assign(net.demands.size(), inf);
+      c.error.assign(net.demands.size(), inf);
+      for (std::size_t k = 0; k < demands.size(); ++k) {
+        const json& b = member(demands[k], "fair_share_bounds", kNoObject);
+        if (!rd.number(b, "lower", c.lower[k], 0) || !rd.number(b, "upper", c.upper[k], inf) ||
+            !rd.number(b, "error", c.error[k], inf))
+          return give_up(rd.error);
+      }
+    }
+  }
   const json& stats = member(root, "stats", kNoObject);
   r.stats.lp_solves = count_of<int>(stats, "lp_solves");
   r.stats.simplex_iterations = count_of<long long>(stats, "simplex_iterations");

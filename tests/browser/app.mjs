@@ -351,6 +351,21 @@ try {
     back = b.next('solved');
     await b.act('objective 0');
     await back;
+    // "prove fairness": the certificate runs in the worker after the solve, and its verdict
+    // comes back with the result (every share proven to 1e-6 of the largest).
+    back = b.next('solved');
+    await b.act('certify on');
+    await back;
+    const proven = await b.state();
+    check('prove fairness: every share proven in the page', proven && proven.fairness &&
+          proven.fairness.status === 'optimal' && proven.fairness.max_relative_error <= 1e-6 &&
+          proven.fairness.bounds === proven.shares.length && proven.shares.length > 0, JSON.stringify(proven && proven.fairness));
+    back = b.next('solved');
+    await b.act('certify off');
+    await back;
+    const plain = await b.state();
+    check('prove fairness off: no certificate', plain && plain.status === 'optimal' && !plain.fairness,
+          JSON.stringify(plain && plain.fairness));
 
     // An invalid edit is not solved; its message selects the item.
     ev = b.next('invalid');

@@ -6,10 +6,14 @@ shares of `apportion fair` (weighted max-min fairness), the lambda of `apportion
 and the total of `apportion throughput` are compared with the ARC formulation solved by
 SciPy 1.10.1's HiGHS, max-min fairness by the textbook method of Nace and Pioro (2008); see
 fair_reference.py.
-Shares must agree to 1e-6 (relative to the largest capacity). Exit status 0 when all agree.
+Shares must agree to 1e-6 (relative to the largest capacity). `apportion fair` runs with
+`--certify`: its certificate must prove every share to 1e-6 of the largest, and the
+reference's shares must lie in its proven intervals (to 1e-6 of the largest capacity).
+Exit status 0 when all agree.
 """
 import argparse
 import json
+import math
 import multiprocessing
 import os
 import random
@@ -54,8 +58,8 @@ def random_instance(rng, i):
             "demands": demands}
 
 
-def run(exe, work, inst, cmd):
-    result, _, err = run_apportion([exe], work, inst, cmd)
+def run(exe, work, inst, cmd, extra=()):
+    result, _, err = run_apportion([exe], work, inst, cmd, extra=extra)
     return result, err
 
 
@@ -67,16 +71,24 @@ def check(job):
     model = ArcModel(inst)
     scale = max([1.0] + model.caps)
     problems, largest = [], 0.0
-    fair, err = run(exe, work, inst, "fair")
+    fair, err = run(exe, work, inst, "fair", ["--certify"])
     if fair is None:
         problems.append(f"apportion fair failed: {err.strip()}")
     else:
         ref, _ = model.max_min()
+        cert = fair.get("fairness_certificate", {})
+        top = max([d["share"] for d in fair["demands"]] + [1e-300])
+        if cert.get("status") != "optimal" or cert.get("max_relative_error", 1) > TOL:
+            problems.append(f"certificate: {cert}")
         for k, d in enumerate(fair["demands"]):
             diff = abs(d["share"] - ref[k]) / scale
             largest = max(largest, diff)
             if diff > TOL:
                 problems.append(f"demand {d['id']}: apportion {d['share']} reference {ref[k]}")
+            b = d.get("fair_share_bounds")
+            if b is None or not (b["lower"] - TOL * scale <= ref[k] <= (b["upper"] if b["upper"] is not None
+                                                                          else math.inf) + TOL * scale):
+                problems.append(f"demand {d['id']}: reference {ref[k]} outside the proven {b} (largest share {top})")
         tp = model.max_throughput()
         if abs(fair["totals"]["max_throughput"] - tp) / scale > TOL:
             problems.append(f"max throughput: apportion {fair['totals']['max_throughput']} reference {tp}")

@@ -166,15 +166,16 @@ class ArcModel:
         return self.solve(c, bounds, rows, rb).x[self.t]
 
 
-def run_apportion(cmd_prefix, work, inst, command, name="inst"):
-    """Runs `<cmd_prefix> <command> <file> --json <out>`; returns (parsed result, raw text, stderr)."""
+def run_apportion(cmd_prefix, work, inst, command, name="inst", extra=()):
+    """Runs `<cmd_prefix> <command> <file> --json <out> <extra...>`; returns (parsed result, raw
+    text, stderr)."""
     path = os.path.join(work, f"{name}.json")
     out = os.path.join(work, f"{name}.{command}.out.json")
     with open(path, "w") as f:
         json.dump(inst, f)
     if os.path.exists(out):
         os.remove(out)
-    p = subprocess.run(list(cmd_prefix) + [command, path, "--json", out], capture_output=True, text=True)
+    p = subprocess.run(list(cmd_prefix) + [command, path, "--json", out] + list(extra), capture_output=True, text=True)
     if not os.path.exists(out):
         return None, None, p.stderr
     raw = open(out).read()

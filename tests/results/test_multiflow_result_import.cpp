@@ -83,6 +83,38 @@ TEST_CASE("results round-trip through their JSON file", "[result-file]") {
   CHECK(check_multiflow(net, *back).ok);
 }
 
+TEST_CASE("a fairness certificate round-trips through the result file", "[result-file][certificate]") {
+  const auto name = GENERATE(as<std::string>{}, "harrowmere-fibre", "lowmoor-relief-roads", "pellam-campus-water");
+  const Network net = demo(name);
+  FairOptions options;
+  options.certify = true;
+  const MultiflowResult r = solve_multiflow(net, options);
+  REQUIRE(r.status == SolveStatus::kOptimal);
+  REQUIRE(r.fairness.status == SolveStatus::kOptimal);
+  std::string error;
+  const auto back = read_multiflow_json(net, multiflow_json(net, r), error);
+  INFO(name << " " << error);
+  REQUIRE(back.has_value());
+  const FairnessCertificate& a = r.fairness;
+  const FairnessCertificate& b = back->fairness;
+  CHECK(b.status == a.status);
+  CHECK(b.max_error == a.max_error);
+  CHECK(b.max_relative_error == a.max_relative_error);
+  CHECK(b.witness_tolerance == a.witness_tolerance);
+  CHECK(b.worst_demand == a.worst_demand);
+  CHECK(b.levels == a.levels);
+  CHECK(b.stats.lp_solves == a.stats.lp_solves);
+  CHECK(b.lower == a.lower);
+  CHECK(b.upper == a.upper);
+  CHECK(b.error == a.error);
+  // Without the option there is no certificate, in the result or its file.
+  const MultiflowResult plain = solve_multiflow(net, FairOptions{});
+  CHECK(plain.fairness.status == SolveStatus::kNotSolved);
+  const auto plain_back = read_multiflow_json(net, multiflow_json(net, plain), error);
+  REQUIRE(plain_back.has_value());
+  CHECK(plain_back->fairness.status == SolveStatus::kNotSolved);
+}
+
 TEST_CASE("max-min progress counts the settled demands", "[result-file]") {
   const Network net = demo("harrowmere-fibre");
   FairOptions options;

@@ -62,6 +62,11 @@ std::string state_json(const char* event) {
   if (result_is_current())
     for (int k = 0; k < static_cast<int>(a.result.demands.size()) && k < 2000; ++k) bound.push_back(share_bound_text(k));
   s["bound_by"] = bound;
+  if (result_is_current() && a.result.fairness.status != SolveStatus::kNotSolved)
+    s["fairness"] = {{"status", status_name(a.result.fairness.status)},
+                     {"max_relative_error", a.result.fairness.max_relative_error},
+                     {"witness_tolerance", a.result.fairness.witness_tolerance},
+                     {"bounds", a.result.fairness.lower.size()}};
   s["dpr"] = a.dpr;
   nlohmann::json errors = nlohmann::json::array();
   for (const Diagnostic& d : a.diagnostics.items)
@@ -177,7 +182,7 @@ void request_solve() {
   s.document = a.document_serial, s.objective = a.objective;
   nlohmann::json request = {{"network", write_network_json(a.doc)}, {"objective", objective_name(a.options.objective)},
                             {"epsilon", a.options.epsilon}, {"hop_limit", a.options.routing.hop_limit},
-                            {"k_paths", a.options.routing.k_paths}};
+                            {"k_paths", a.options.routing.k_paths}, {"certify", a.options.certify}};
   a.notice.clear();
   start_solve(s.id, request.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace));
   report("solve-started");
@@ -626,7 +631,10 @@ void action(const std::string& what) {
     download_text(file_stem() + ".matrix.csv", "text/csv", write_matrix_csv(a.doc).text);
   else if (what == "export-result-json" && r)
     download_text(file_stem() + ".result.json", "application/json", multiflow_json(a.doc, *r));
-  else if (what.rfind("objective ", 0) == 0) {
+  else if (what == "certify on" || what == "certify off") {
+    a.options.certify = what == "certify on";
+    request_solve();
+  } else if (what.rfind("objective ", 0) == 0) {
     const int i = std::atoi(what.c_str() + 10);
     if (i >= 0 && i < static_cast<int>(std::size(kObjectives))) a.objective = i, request_solve();
   } else if (what == "take-out-selected" || what == "restore-selected") {

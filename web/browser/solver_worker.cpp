@@ -1,7 +1,7 @@
 // The solver worker: the fair-multiflow engine as its own WebAssembly module, run in a Web
 // Worker so that the page keeps drawing while it solves. The page sends one request
 //   {"network": "<network JSON text>", "objective": "max-min-fair", "epsilon": 0.1,
-//    "hop_limit": 0, "k_paths": 0}
+//    "hop_limit": 0, "k_paths": 0, "certify": false}
 // and gets back the result file of core/FORMAT.md ("Fair-multiflow result files"), which it
 // reads with read_multiflow_json and checks again with the independent checker. Progress is
 // posted at most every 100 ms. Cancel is the page terminating this worker: it stops a solve
@@ -53,6 +53,8 @@ std::string solve(int id, const char* request_text) {
   options.epsilon = number("epsilon", 0.1);
   options.routing.hop_limit = static_cast<int>(std::clamp(number("hop_limit", 0), 0.0, 1e6));
   options.routing.k_paths = static_cast<int>(std::clamp(number("k_paths", 0), 0.0, 1e6));
+  const auto certify = request.find("certify");
+  options.certify = certify != request.end() && certify->is_boolean() && certify->get<bool>();
   double last = 0;
   options.on_progress = [&](const SolveProgress& p) {
     const double now = emscripten_get_now();

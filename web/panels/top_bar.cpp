@@ -414,6 +414,14 @@ void draw_toolbar() {
   }
   if (ImGui::IsItemHovered()) ImGui::SetTooltip("Only the k shortest paths of each demand (0: any path).");
   bar.record("paths");
+  if (kObjectives[a.objective] == FairObjective::kMaxMinFair) {
+    bar.next(ImGui::GetFrameHeight() + ImGui::CalcTextSize("prove fairness").x + ImGui::GetStyle().ItemInnerSpacing.x);
+    if (ImGui::Checkbox("prove fairness", &a.options.certify)) request_solve();
+    if (ImGui::IsItemHovered())
+      ImGui::SetTooltip("After the solve, prove every share: an interval that holds its exact max-min fair share,\n"
+                        "from LPs of its own, checked from first principles. Takes 1.5-4x the solve's time.");
+    bar.record("certify");
+  }
   bar.next(ImGui::GetFrameHeight() + ImGui::CalcTextSize("solve after each edit").x + ImGui::GetStyle().ItemInnerSpacing.x);
   ImGui::Checkbox("solve after each edit", &a.auto_solve);
   bar.record("auto-solve");
