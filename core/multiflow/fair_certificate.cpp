@@ -35,8 +35,11 @@ constexpr double kRoom = 100 * kLpTolerance;
 class Certifier {
  public:
   Certifier(const Network& scaled, const std::vector<double>& shares, const RoutingOptions& routing,
-            const std::vector<DemandShare>* routes)
-      : g_(FlowGraph::from_network(scaled)),
+            const std::vector<DemandShare>* routes, double scale,
+            const std::function<void(const SolveProgress&)>& on_progress)
+      : on_progress_(on_progress),
+        scale_(scale),
+        g_(FlowGraph::from_network(scaled)),
         specs_(make_specs(scaled)),
         shares_(shares),
         routing_(routing),
@@ -77,6 +80,10 @@ class Certifier {
   }
   // The witness at level tau (kInf: above every level); raises `lower_` where it holds.
   bool witness(double tau, FairnessCertificate& c);
+  // The allocation itself as the witness at level tau, when it came with its routing: it
+  // gives every demand at least min(w_k tau, U_k) once the upper bounds below tau are tight.
+  // False (nothing changed) when it misses by more than the slack; then an LP witness runs.
+  bool allocation_witness(double tau, FairnessCertificate& c);
   // Upper bounds from the last LP's capacity duals, recomputed by shortest paths.
   void upper_from_duals();
   // The level's demands without a tight upper bound: an LP maximising their sum.
@@ -85,6 +92,19 @@ class Certifier {
     return !std::isfinite(upper_[k]) || upper_[k] - lower_[k] > 1e-9 * std::max(1.0, upper_[k]);
   }
 
+  void report(int level) const {
+    if (!on_progress_) return;
+    SolveProgress p;
+    p.stage = "proving fairness";
+    p.round = level;
+    p.demands = K();
+    for (int k = 0; k < K(); ++k) p.demands_settled += loose(k) ? 0 : 1;
+    p.lp_solves = master_.stats().lp_solves;
+    on_progress_(p);
+  }
+
+  const std::function<void(const SolveProgress&)>& on_progress_;
+  double scale_;  // the certificate's unit, in the network's
   FlowGraph g_;
   std::vector<DemandSpec> specs_;
   std::vector<double> shares_;
@@ -95,6 +115,8 @@ class Certifier {
   std::vector<double> lower_, upper_;
   bool solved_ = false;              // the LP holds a solution
   double tolerance_ = 0.0;           // the most any accepted witness missed by, relative
+  std::vector<double> routed_;       // the allocation's shares, from its own paths (when given)
+  double routed_excess_ = kInf;      // its largest capacity excess, relative (kInf: no routing)
 };
 
 void Certifier::start_from(const std::vector<DemandShare>& routes) {
@@ -114,6 +136,20 @@ void Certifier::start_from(const std::vector<DemandShare>& routes) {
       if (lanes.size() == p.arcs.size() && !lanes.empty()) master_.add_route(k, std::move(lanes));
     }
   }
+  // The allocation as a routing: its shares and loads, recomputed from its paths, in the
+  // certificate's unit (the shares' scale).
+  routed_.assign(K(), 0.0);
+  std::vector<double> load(g_.arc_count(), 0.0);
+  for (int k = 0; k < K() && k < static_cast<int>(routes.size()); ++k)
+    for (const PathShare& p : routes[k].paths) {
+      routed_[k] += p.amount / scale_;
+      for (int a : p.arcs)
+        if (a >= 0 && a < g_.arc_count()) load[a] += p.amount / scale_;
+    }
+  routed_excess_ = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a)
+    if (load[a] > g_.capacity(a))
+      routed_excess_ = std::max(routed_excess_, (load[a] - g_.capacity(a)) / std::max(1.0, g_.capacity(a)));
 }
 
 void Certifier::reset() {
@@ -142,6 +178,22 @@ bool Certifier::solve(LpSolver::Method m, FairnessCertificate& c, bool last_try)
   c.status = SolveStatus::kNumericalDifficulty;
   c.message = std::string("a certificate LP ended '") + lp_status_name(s) + "' (" + lp().last_message() + ")";
   return false;
+}
+
+bool Certifier::allocation_witness(double tau, FairnessCertificate& c) {
+  if (!(routed_excess_ <= kWitnessSlack)) return false;
+  double missed = routed_excess_;
+  for (int k = 0; k < K(); ++k) {
+    if (!master_.reachable(k) || lower_[k] >= specs_[k].weight * tau) continue;  // known at or above
+    const double target = std::min(specs_[k].weight * tau, upper_[k]);
+    if (routed_[k] < target) missed = std::max(missed, (target - routed_[k]) / std::max(1.0, target));
+  }
+  if (!(missed <= kWitnessSlack)) return false;
+  tolerance_ = std::max(tolerance_, missed);
+  ++c.witnesses_used;
+  for (int k = 0; k < K(); ++k)
+    if (master_.reachable(k)) lower_[k] = std::max(lower_[k], std::min(specs_[k].weight * tau, upper_[k]));
+  return true;
 }
 
 bool Certifier::witness(double tau, FairnessCertificate& c) {
@@ -307,15 +359,14 @@ bool Certifier::test_level(const std::vector<int>& level, FairnessCertificate& c
   for (int k : level)
     if (loose(k)) open.push_back(k);
   if (open.empty()) return true;
-  // Every demand at or above its lower bound, or its last share where that is lower (the
-  // LP's tolerance), so that the last solution stays feasible. (Any LP gives valid bounds:
-  // they rest on its duals and on the proven lower bounds alone.)
-  std::vector<double> last(K(), 0.0);
-  for (int k = 0; k < K(); ++k) last[k] = lp().value(master_.share_column(k));
+  // Every demand at or above its lower bound (less a little room: the LP's tolerance). Any LP
+  // gives valid bounds -- they rest on its duals and the proven lower bounds alone -- but
+  // only this one gives tight ones: a demand of a higher level let down below its lower bound
+  // frees capacity the level's demands then seem to be able to use (seen when the last
+  // solution held such a demand lower, and its bound followed it).
   reset();
   for (int k = 0; k < K(); ++k)
-    if (master_.reachable(k))
-      bounds(k, std::max(0.0, std::min(lower_[k], last[k]) - kRoom * std::max(1.0, lower_[k])), specs_[k].amount);
+    if (master_.reachable(k)) bounds(k, std::max(0.0, lower_[k] - kRoom * std::max(1.0, lower_[k])), specs_[k].amount);
   for (int k : open) lp().set_cost(master_.share_column(k), -1.0);
   if (!solve(LpSolver::Method::kPrimal, c)) return false;
   upper_from_duals();
@@ -341,35 +392,45 @@ bool Certifier::certify(FairnessCertificate& c) {
     levels.back().push_back(k);
   }
   for (const std::vector<int>& level : levels) {
-    double tau = 0.0;
-    for (int k : level) tau = std::max(tau, shares_[k] / specs_[k].weight);
-    if (!witness(tau, c)) return false;
+    // The allocation is its own witness at the level's lowest share (every demand of the
+    // level and above has at least that); where it falls short, an LP witness at the highest.
+    double low = kInf, high = 0.0;
+    for (int k : level) {
+      low = std::min(low, shares_[k] / specs_[k].weight);
+      high = std::max(high, shares_[k] / specs_[k].weight);
+    }
+    if (!allocation_witness(low, c) && !witness(high, c)) return false;
     if (!test_level(level, c)) return false;
     ++c.levels;
+    report(c.levels);
   }
   // The demands at their amounts above the top level.
-  return witness(kInf, c);
+  return allocation_witness(kInf, c) || witness(kInf, c);
 }
 
+using Progress = std::function<void(const SolveProgress&)>;
+
 FairnessCertificate certify(const Network& net, const std::vector<double>& shares, const RoutingOptions& routing,
-                            const std::vector<DemandShare>* routes);
+                            const std::vector<DemandShare>* routes, const Progress& on_progress);
 
 }  // namespace
 
-FairnessCertificate certify_max_min(const Network& net, const MultiflowResult& result, const RoutingOptions& routing) {
+FairnessCertificate certify_max_min(const Network& net, const MultiflowResult& result, const RoutingOptions& routing,
+                                    const Progress& on_progress) {
   std::vector<double> shares;
   for (const DemandShare& d : result.demands) shares.push_back(d.share);
-  return certify(net, shares, routing, &result.demands);
+  return certify(net, shares, routing, &result.demands, on_progress);
 }
 
-FairnessCertificate certify_max_min(const Network& net, const std::vector<double>& shares, const RoutingOptions& routing) {
-  return certify(net, shares, routing, nullptr);
+FairnessCertificate certify_max_min(const Network& net, const std::vector<double>& shares, const RoutingOptions& routing,
+                                    const Progress& on_progress) {
+  return certify(net, shares, routing, nullptr, on_progress);
 }
 
 namespace {
 
 FairnessCertificate certify(const Network& net, const std::vector<double>& shares, const RoutingOptions& routing,
-                            const std::vector<DemandShare>* routes) {
+                            const std::vector<DemandShare>* routes, const Progress& on_progress) {
   const auto start = std::chrono::steady_clock::now();
   FairnessCertificate c;
   if (net.demands.empty() || shares.size() != net.demands.size()) {
@@ -387,7 +448,7 @@ FairnessCertificate certify(const Network& net, const std::vector<double>& share
   const Network scaled = scaled_network(net, scale);
   std::vector<double> s(shares.size());
   for (std::size_t k = 0; k < shares.size(); ++k) s[k] = shares[k] / scale;
-  Certifier cert(scaled, s, routing, routes);
+  Certifier cert(scaled, s, routing, routes, scale, on_progress);
   const bool done = cert.run(c);
   if (done) c.status = SolveStatus::kOptimal;
   const int K = static_cast<int>(shares.size());

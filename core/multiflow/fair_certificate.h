@@ -19,14 +19,20 @@
 //     T. Magnanti, J. Orlin, "Network Flows", 1993, ch. 17). With f* >= L elsewhere:
 //       f*_k <= L_k + G / d_k(y),   G = sum_e c_e y_e - sum_j L_j d_j(y),   for d_k(y) > 0.
 // Method: the allocation's own levels guide the LPs. Its demands below their amounts are
-// grouped by normalised share into levels tau_1 < tau_2 < ...; for each, (a) a witness LP
-// gives every demand whose upper bound lies below tau its upper bound and then raises the
-// rest to the highest common level theta they can reach (lower bounds); its capacity duals are one y
-// (upper bounds); (b) the level's demands still without a tight upper bound get one from the
-// duals of an LP that maximises their sum with every demand at or above its lower bound. A
-// last witness covers the demands at their amounts above the top level. For an exact
-// allocation every bound closes to the LP tolerances; for an approximate one the bounds say
-// how far each share can be from the fair one.
+// grouped by normalised share into levels tau_1 < tau_2 < ...; for each, in order:
+//   (a) lower bounds from a witness at the level. When the allocation comes with its routing
+//       (a solved result), it is its own witness: every demand of the level and above has at
+//       least w_k tau, and every demand below has its share, which is its upper bound once
+//       the levels below are proven (to the tolerance below). Otherwise, or when it misses
+//       by more than that, a witness LP gives every demand whose upper bound lies below tau
+//       its upper bound and raises the rest to the highest common level theta they can
+//       reach; its capacity duals are one y;
+//   (b) upper bounds for the level's demands not yet bounded tightly: the duals of an LP that
+//       maximises their sum with every demand at or above its lower bound.
+// A last witness covers the demands at their amounts above the top level. For an exact
+// allocation every bound closes to the LP tolerances, in one LP per level when the routing
+// is given; for an approximate one the bounds say how far each share can be from the fair
+// one.
 // The LPs are the engine's path master (path_master.h); what they prove is recomputed here:
 // the witness's shares and loads from its path flows, and every upper bound from y by
 // shortest paths (path_pricing.h), so an LP answer that is wrong makes the bounds looser or
@@ -42,6 +48,7 @@
 // give tiny distances d_k and magnify every error in G by 1 / d_k).
 #pragma once
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -56,11 +63,15 @@ namespace apportion {
 // for the exact fair shares either way, and `error` measures how far these shares can be
 // from them. kBadInput when the sizes disagree or the network has no demands;
 // kNumericalDifficulty when an LP fails (the bounds found so far are kept, and still hold).
+// `on_progress`, when given, hears after every level: stage "proving fairness", the level as
+// the round, the demands whose interval has closed (to 1e-9) as settled, and the LPs so far.
 FairnessCertificate certify_max_min(const Network& net, const std::vector<double>& shares,
-                                    const RoutingOptions& routing = {});
+                                    const RoutingOptions& routing = {},
+                                    const std::function<void(const SolveProgress&)>& on_progress = {});
 // The same for a solved result, whose paths start the certificate's LPs (faster; the bounds
 // are the same kind of proof, on the result's shares).
 FairnessCertificate certify_max_min(const Network& net, const MultiflowResult& result,
-                                    const RoutingOptions& routing = {});
+                                    const RoutingOptions& routing = {},
+                                    const std::function<void(const SolveProgress&)>& on_progress = {});
 
 }  // namespace apportion

@@ -949,15 +949,15 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     again(r, careful);
   }
   if (r.status == SolveStatus::kOptimal && options.certify && options.objective == FairObjective::kMaxMinFair) {
-    if (options.on_progress) {
-      SolveProgress p;
-      p.stage = "proving fairness";
-      p.demands = static_cast<int>(r.demands.size());
-      p.demands_settled = p.demands;
-      p.lp_solves = r.stats.lp_solves;
-      options.on_progress(p);
-    }
-    r.fairness = certify_max_min(net, r, options.routing);
+    // The certificate's progress continues the solve's LP count.
+    std::function<void(const SolveProgress&)> progress;
+    if (options.on_progress)
+      progress = [&options, solved = r.stats.lp_solves](const SolveProgress& p) {
+        SolveProgress q = p;
+        q.lp_solves += solved;
+        options.on_progress(q);
+      };
+    r.fairness = certify_max_min(net, r, options.routing, progress);
   }
   if (r.status == SolveStatus::kNumericalDifficulty) {
     // Say what makes this network hard, and what to do about it: the LP solver's tolerances

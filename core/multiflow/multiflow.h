@@ -82,7 +82,7 @@ struct FairOptions {
   static constexpr int kNever = std::numeric_limits<int>::max();
   int origin_rounds_from = kNever;
   // kMaxMinFair: after the solve, prove each share with the fairness certificate
-  // (fair_certificate.h) into MultiflowResult::fairness; 1.5-4x the solve's time.
+  // (fair_certificate.h) into MultiflowResult::fairness; a small fraction of the solve's time.
   bool certify = false;
   std::function<void(const SolveProgress&)> on_progress;  // optional
 };

@@ -46,11 +46,11 @@ Options:
                    aggregated by origin; the same shares, 2-4x faster on some networks
                    with thousands of demands, slower on others (README, Benchmark)
   --certify        fair: prove how far each share can be from the exact max-min fair
-                   share, independently of the rounds that found it (LP witnesses for
-                   lower bounds, LP duals recomputed by shortest paths for upper bounds;
-                   about 1-3x the time of the solve); adds the bounds to the table, --json
-                   and --csv; exit status 3 when a share is not proven to 1e-6 of the
-                   largest share
+                   share, independently of the rounds that found it (the routing as the
+                   witness for lower bounds, LP prices recomputed by shortest paths for
+                   upper bounds; a fraction of the solve's time); adds the bounds to the
+                   table, --json and --csv; exit status 3 when a share is not proven to
+                   1e-6 of the largest share (see also 'apportion certify')
   --all-arcs       list arcs without load too
   --json OUT       the whole result as JSON (core/FORMAT.md)
   --csv PREFIX     PREFIX.demands.csv, PREFIX.arcs.csv, PREFIX.paths.csv

@@ -16,5 +16,6 @@ int run_max_flow(int argc, char** argv);  // also "mincut": the same solve, the 
 int run_min_cost_flow(int argc, char** argv);
 int run_fair(int argc, char** argv);  // fair, throughput, concurrent, feasible, tradeoff
 int run_demands(int argc, char** argv);
+int run_certify(int argc, char** argv);  // a saved max-min result, proven
 
 }  // namespace apportion::cli

@@ -26,9 +26,11 @@ Sharing capacity among all demands of a file:
   concurrent the largest common fraction of every amount
   feasible   can every amount be met? if not, by how much, with a certificate
   tradeoff   the most total flow keeping each share near its fair share
+  certify    prove a saved max-min result: how far each share can be from its fair share
 
 Run 'apportion <command> --help' for the options and an example of each.
-Exit codes: 0 success, 1 no solution (e.g. infeasible supplies), 2 bad input or usage.
+Exit codes: 0 success, 1 no solution (e.g. infeasible supplies), 2 bad input or usage,
+3 solved or read but not proven (fair --certify, certify).
 )";
 
 }  // namespace
@@ -45,6 +47,7 @@ int main(int argc, char** argv) {
   if (cmd == "maxflow" || cmd == "mincut") return run_max_flow(argc, argv);
   if (cmd == "mincost") return run_min_cost_flow(argc, argv);
   if (cmd == "demands") return run_demands(argc, argv);
+  if (cmd == "certify") return run_certify(argc, argv);
   if (cmd == "fair" || cmd == "throughput" || cmd == "concurrent" || cmd == "feasible" || cmd == "tradeoff")
     return run_fair(argc, argv);
   std::cerr << "apportion: unknown command '" << cmd << "'\n" << kUsage;

@@ -357,6 +357,7 @@ try {
     await b.act('certify on');
     await back;
     const proven = await b.state();
+    await b.page.screenshot({ path: path.join(artefacts, 'prove-fairness.png') });
     check('prove fairness: every share proven in the page', proven && proven.fairness &&
           proven.fairness.status === 'optimal' && proven.fairness.max_relative_error <= 1e-6 &&
           proven.fairness.bounds === proven.shares.length && proven.shares.length > 0, JSON.stringify(proven && proven.fairness));

@@ -118,6 +118,31 @@ for d in demos:
               for b, x in zip(bounds, c["demands"])) and
           header.strip().endswith("fair_share_lower,fair_share_upper,fair_share_error"), r.stdout[-500:] + r.stderr)
 check("tradeoff --certify is a usage error", run("tradeoff", demos[0], "--certify").returncode == 2)
+# `apportion certify` proves a saved result; an unfair one (a demand's share and paths scaled
+# down, still a feasible routing) is refused with exit 3 naming that demand; a result of
+# another rule is bad input.
+saved = os.path.join(args.work, "saved.json")
+run("fair", demos[0], "--json", saved)
+r = run("certify", demos[0], saved)
+check("certify a saved fair result: proven (exit 0)",
+      r.returncode == 0 and "routing: checked" in r.stdout and "fairness: every share is within" in r.stdout,
+      r.stdout + r.stderr)
+unfair = json.load(open(saved))
+victim = max(unfair["demands"], key=lambda x: x["share"])
+victim["share"] *= 0.5
+for p in victim["paths"]:
+    p["amount"] *= 0.5
+for a in unfair["arcs"]:  # the per-arc view follows the paths
+    if victim["id"] in a["per_demand"]:
+        a["load"] -= a["per_demand"][victim["id"]] * 0.5
+        a["per_demand"][victim["id"]] *= 0.5
+tampered = w("tampered.json", json.dumps(unfair))
+r = run("certify", demos[0], tampered)
+check("certify an unfair result: not proven (exit 3), the demand named",
+      r.returncode == 3 and "NOT proven" in r.stdout and victim["id"] in r.stdout, r.stdout + r.stderr)
+thr = os.path.join(args.work, "throughput.json")
+run("throughput", demos[0], "--json", thr)
+check("certify a throughput result: bad input (exit 2)", run("certify", demos[0], thr).returncode == 2)
 check("fair --hop-limit 0 is a usage error", run("fair", demos[0], "--hop-limit", "0").returncode == 2)
 check("tradeoff --epsilon 2 is a usage error", run("tradeoff", demos[0], "--epsilon", "2").returncode == 2)
 

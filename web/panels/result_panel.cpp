@@ -180,7 +180,9 @@ void draw_result_panel() {
   const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_Resizable |
                                 ImGuiTableFlags_ScrollY | ImGuiTableFlags_ScrollX | ImGuiTableFlags_SizingFixedFit |
                                 ImGuiTableFlags_Sortable | ImGuiTableFlags_SortTristate;
-  if (!ImGui::BeginTable("shares", have_change ? 7 : 6, flags)) return;
+  // With a finished fairness certificate, each share's proven distance from its fair share.
+  const bool have_proof = r.fairness.status == SolveStatus::kOptimal && r.fairness.error.size() == r.demands.size();
+  if (!ImGui::BeginTable("shares", 6 + (have_change ? 1 : 0) + (have_proof ? 1 : 0), flags)) return;
   ImGui::TableSetupScrollFreeze(1, 1);
   const std::string share_header = net.units.capacity.empty() ? "Share" : "Share (" + net.units.capacity + ")";
   // The numbers first, the ends (also in the demand's tooltip) last.
@@ -191,6 +193,7 @@ void draw_result_panel() {
   ImGui::TableSetupColumn("Bound by");
   ImGui::TableSetupColumn("From \u2192 to");
   if (have_change) ImGui::TableSetupColumn("Change");
+  if (have_proof) ImGui::TableSetupColumn("Proven fair within", ImGuiTableColumnFlags_NoSort);
   ImGui::TableHeadersRow();
   take_sort_specs(a.share_view);
   ImGuiListClipper clipper;
@@ -247,6 +250,12 @@ void draw_result_panel() {
           if (std::abs(delta) <= 1e-9 * std::max(1.0, std::abs(before->second))) ImGui::TextUnformatted("=");
           else ImGui::Text("%+.6g", delta);
         }
+      }
+      if (have_proof) {
+        ImGui::TableNextColumn();
+        ImGui::Text("\u00b1 %.2g", r.fairness.error[k]);
+        if (ImGui::IsItemHovered())
+          ImGui::SetTooltip("Its exact max-min fair share lies in [%.9g, %.9g]", r.fairness.lower[k], r.fairness.upper[k]);
       }
     }
   }

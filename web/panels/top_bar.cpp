@@ -419,7 +419,7 @@ void draw_toolbar() {
     if (ImGui::Checkbox("prove fairness", &a.options.certify)) request_solve();
     if (ImGui::IsItemHovered())
       ImGui::SetTooltip("After the solve, prove every share: an interval that holds its exact max-min fair share,\n"
-                        "from LPs of its own, checked from first principles. Takes 1.5-4x the solve's time.");
+                        "from LPs of its own, checked from first principles. Adds a fraction of the solve's time.");
     bar.record("certify");
   }
   bar.next(ImGui::GetFrameHeight() + ImGui::CalcTextSize("solve after each edit").x + ImGui::GetStyle().ItemInnerSpacing.x);
