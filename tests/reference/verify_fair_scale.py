@@ -27,7 +27,9 @@ their amounts.
 This test failed before the fix of December 2026: a level row's dual of 2.9e-12, rounding
 noise, passed the bound 1e-9 / (sum of weights) and froze demands that could still grow.
 Both ways of running the rounds are checked: per demand (the default) and aggregated by
-origin (`apportion fair --by-origin`). Exit status 0 when every tier of both passes.
+origin (`apportion fair --by-origin`); the first also with its fairness certificate
+(`--certify`), which must prove every share to 1e-6 of the largest. Exit status 0 when every
+tier of both passes.
 
 A saved result can be checked instead of a new run, e.g. all 22,052 pairs (33 min to solve,
 about 40 s per tier LP here): --network NET.json --result RESULT.json [--sample N], which
@@ -149,9 +151,11 @@ def main():
     os.makedirs(a.work, exist_ok=True)
     path = os.path.join(a.work, f"GtsCe-{a.demands}.json")
     net = topology_instance(a.apportion, graphml, a.demands, 1, path, decimals=6)
-    # Both ways of running the rounds: per demand (the default) and aggregated by origin.
+    # Both ways of running the rounds: per demand (the default, with its fairness certificate)
+    # and aggregated by origin. The certificate must prove every share to 1e-6 of the
+    # largest, and the outside check below must agree that the shares are fair.
     failed = False
-    for extra in ([], ["--by-origin"]):
+    for extra in (["--certify"], ["--by-origin"]):
         how = " ".join(["fair"] + extra)
         out = os.path.join(a.work, "result%s.json" % "".join(extra).replace("--", "-"))
         t0 = time.time()
@@ -165,8 +169,15 @@ def main():
         ok = res["status"] == "optimal" and res["check"]["ok"]
         # The aggregated rounds run no saturation tests; the per-demand rounds they fall back
         # to on numerical trouble do (dozens at this size), so a fallback cannot pass as theirs.
-        if extra:
+        if "--by-origin" in extra:
             ok = ok and res["stats"]["saturation_tests"] == 0
+        if "--certify" in extra:
+            cert = res.get("fairness_certificate", {})
+            proven = cert.get("status") == "optimal" and cert.get("max_relative_error", 1) <= 1e-6
+            print(f"{'ok  ' if proven else 'FAIL'}  apportion {how}: the certificate proves every share to "
+                  f"{cert.get('max_relative_error')} of the largest ({cert.get('levels')} levels, "
+                  f"{cert.get('lp_solves')} LPs, {cert.get('seconds', 0):.1f} s)")
+            ok = ok and proven
         print(f"{'ok  ' if ok else 'FAIL'}  apportion {how}, {len(net['demands'])} demands on GtsCe: optimal, feasibility "
               f"check passed ({took:.0f} s, {len(res['tiers'])} tiers, {res['stats']['saturation_tests']} saturation tests)")
         t0 = time.time()
