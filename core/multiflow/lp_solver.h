@@ -67,8 +67,9 @@ class LpSolver {
   // A solve that takes more simplex iterations than this stops with kFailed (0: no limit);
   // a guard against a simplex that stalls on an ill-conditioned model.
   void set_iteration_limit(long long limit);
-  // HiGHS's primal feasibility tolerance (absolute; its default 1e-7): how far a solution
-  // may stand outside a bound or a row and still count as feasible.
+  // HiGHS's primal and dual feasibility tolerances (absolute; its defaults 1e-7): how far a
+  // solution may stand outside a bound or a row, or a reduced cost on the wrong side of
+  // zero, and still count as feasible.
   void set_feasibility_tolerance(double tolerance);
   double objective() const;
   double value(int column) const;
