@@ -40,7 +40,7 @@ class Certifier {
       : on_progress_(on_progress),
         scale_(scale),
         g_(FlowGraph::from_network(scaled)),
-        specs_(make_specs(scaled)),
+        specs_(demand_specs(scaled)),
         shares_(shares),
         routing_(routing),
         usable_(usable_arcs(g_)),
@@ -64,11 +64,6 @@ class Certifier {
   // The allocation's own paths as the master's first columns: the LPs start near where they
   // end, in far fewer pricing rounds and iterations. (Columns prove nothing by themselves.)
   void start_from(const std::vector<DemandShare>& routes);
-  static std::vector<DemandSpec> make_specs(const Network& net) {
-    std::vector<DemandSpec> s;
-    for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(kInf), d.weight});
-    return s;
-  }
   int K() const { return static_cast<int>(specs_.size()); }
   LpSolver& lp() { return master_.lp(); }
   // `last_try` false: a failure is left to the caller to retry another way (no status set).

@@ -52,7 +52,7 @@ class Engine {
       : net_(net),
         opt_(opt),
         g_(FlowGraph::from_network(net)),
-        specs_(make_specs(net)),
+        specs_(demand_specs(net)),
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
         demand_tol_(demand_tolerances()) {
     master_.lp().set_hot_start(opt.hot_start);
@@ -62,11 +62,6 @@ class Engine {
   MultiflowResult run();
 
  private:
-  static std::vector<DemandSpec> make_specs(const Network& net) {
-    std::vector<DemandSpec> s;
-    for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(kInf), d.weight});
-    return s;
-  }
   std::vector<Tolerance> demand_tolerances() const;
   int K() const { return static_cast<int>(specs_.size()); }
   LpSolver& lp() { return master_.lp(); }

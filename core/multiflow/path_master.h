@@ -29,6 +29,7 @@
 #include <vector>
 
 #include "apportion/flow/flow_graph.h"
+#include "apportion/model/network.h"
 #include "apportion/multiflow/lp_solver.h"
 #include "apportion/multiflow/multiflow.h"
 #include "apportion/multiflow/path_pricing.h"
@@ -40,6 +41,13 @@ struct DemandSpec {
   double amount = LpSolver::kInf;  // inf: as much as possible
   double weight = 1.0;
 };
+
+// The demands of a network as the master LP takes them.
+inline std::vector<DemandSpec> demand_specs(const Network& net) {
+  std::vector<DemandSpec> s;
+  for (const Demand& d : net.demands) s.push_back({d.origin, d.destination, d.amount.value_or(LpSolver::kInf), d.weight});
+  return s;
+}
 
 struct MasterPath {
   int demand = -1;

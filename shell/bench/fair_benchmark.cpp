@@ -99,11 +99,14 @@ int main(int argc, char** argv) {
       cold_iterations = other.stats.simplex_iterations;
     }
     if (certify) {
-      std::vector<double> shares;
-      for (const auto& d : r.demands) shares.push_back(d.share);
-      const apportion::FairnessCertificate c = shares_only
-                                                   ? apportion::certify_max_min(*loaded.network, shares, opt.routing)
-                                                   : apportion::certify_max_min(*loaded.network, r, opt.routing);
+      apportion::FairnessCertificate c;
+      if (shares_only) {
+        std::vector<double> shares;
+        for (const auto& d : r.demands) shares.push_back(d.share);
+        c = apportion::certify_max_min(*loaded.network, shares, opt.routing);
+      } else {
+        c = apportion::certify_max_min(*loaded.network, r, opt.routing);
+      }
       const double cms = 1000 * c.seconds;
       std::fprintf(stderr, "%s certificate: %s, %.3f ms, %d LPs, %lld iterations, %d levels, witnesses %d used %d refused (tolerance %.2g), largest error %.3g of the largest share\n",
                    argv[i], apportion::status_name(c.status), cms, c.stats.lp_solves, c.stats.simplex_iterations, c.levels,
