@@ -3,6 +3,7 @@
 #include "apportion/multiflow/fair_multiflow.h"
 
 #include <algorithm>
+#include <chrono>
 #include <cmath>
 #include <limits>
 #include <queue>
@@ -65,8 +66,11 @@ class Engine {
   std::vector<Tolerance> demand_tolerances() const;
   int K() const { return static_cast<int>(specs_.size()); }
   LpSolver& lp() { return master_.lp(); }
-  bool solve(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual) {
+  // `clock`, when given, gains the seconds of this solve (MultiflowStats: where the time goes).
+  bool solve(MultiflowResult& r, LpSolver::Method first = LpSolver::Method::kDual, double* clock = nullptr) {
+    const auto start = std::chrono::steady_clock::now();
     const LpStatus s = master_.solve(first);
+    if (clock) *clock += std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
     report(master_.stats().lp_solves + origin_stats_.lp_solves);
     if (s == LpStatus::kOptimal) return true;
     r.status = SolveStatus::kNumericalDifficulty;
@@ -108,7 +112,7 @@ class Engine {
   bool fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vector<OriginPiece>& routes);
   bool use_origins() const { return rounds_by_origin(opt_, K()); }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
-               bool& yes, MultiflowResult& r);
+               bool& yes, MultiflowResult& r, LpSolver::Method method);
   bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
                       const std::vector<int>& at_amount, const std::vector<int>& open, double t, double& no_search_from,
                       bool& settled);
@@ -245,7 +249,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
     // The last round fixed shares where they stood and relaxed or enforced level rows
     // where they hold: the last solution is still feasible (t lies within [0, cap_t]), so
     // the primal simplex goes on from it; the dual would first regain dual feasibility.
-    if (!solve(r, onward())) return false;
+    if (!solve(r, onward(), &r.stats.seconds_raising)) return false;
     const double t = lp().value(level);
 
     Tier tier;
@@ -305,7 +309,7 @@ bool Engine::max_min(MultiflowResult& r, std::vector<double>& fair) {
         ++r.stats.saturation_tests;
         // Only costs changed (and t was fixed where it stands): the last solution is still
         // feasible, and the primal simplex goes on from it.
-        if (!solve(r, onward())) return false;
+        if (!solve(r, onward(), &r.stats.seconds_saturation_tests)) return false;
         std::vector<int> still;
         bool any_grew = false;
         for (int k : undecided) {
@@ -458,7 +462,7 @@ bool Engine::fair_shares(MultiflowResult& r, std::vector<double>& fair, std::vec
 // others; below G it asks less than min(w_k t, a_k), so t reaches G if and only if the
 // allocation fits. Only bounds change, and each test keeps the last solution feasible.
 bool Engine::reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels,
-                     int g, bool& yes, MultiflowResult& r) {
+                     int g, bool& yes, MultiflowResult& r, LpSolver::Method method) {
   const double G = levels[g];
   for (std::size_t i = 0; i < open.size(); ++i) {
     const int k = open[i];
@@ -467,7 +471,8 @@ bool Engine::reaches(const std::vector<int>& open, const std::vector<int>& group
   }
   lp().set_cost(master_.level_column(), -1.0);
   lp().set_column_bounds(master_.level_column(), 0.0, G);
-  if (!solve(r, onward())) return false;
+  ++r.stats.amount_tests;
+  if (!solve(r, method, &r.stats.seconds_amount_tests)) return false;
   yes = !Tolerance(1e-9 * G).less(lp().value(master_.level_column()), G);
   return true;
 }
@@ -509,19 +514,39 @@ bool Engine::settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::
   const int n = static_cast<int>(levels.size());
   int pass = -1, fail = n;
   bool yes = false;
-  for (int g = 0;;) {  // galloping: 0, 1, 3, 7, ...
-    if (!reaches(all, group, levels, g, yes, r)) return false;
+  // A floor under the search: the level t_u that every open demand reaches at once with its
+  // amount lifted. Scaled down to the amounts, that routing gives each min(w_k t_u, a_k), so
+  // every level up to t_u passes without a test. The tests then start just below the
+  // highest level, near the current point, where galloping from the lowest level reached
+  // its far tests only after crossing it (all pairs of GtsCe: 16 tests, 164 s, in the first
+  // round; README, Benchmark).
+  LpSolver::Method next = onward();
+  if (opt_.amount_floor && n > 1) {
+    for (int k : all) share_bounds(k, 0.0, kInf);
+    lp().set_column_bounds(master_.level_column(), 0.0, kInf);
+    ++r.stats.amount_tests;
+    if (!solve(r, onward(), &r.stats.seconds_amount_tests)) return false;
+    const double floor = lp().value(master_.level_column()) * (1.0 - 1e-7);
+    for (int k : all) share_bounds(k, 0.0, specs_[k].amount);
+    pass = static_cast<int>(std::upper_bound(levels.begin(), levels.end(), floor) - levels.begin()) - 1;
+    // Shares above their amounts are now out of bounds: the dual simplex restores them.
+    next = LpSolver::Method::kDual;
+  }
+  const int start = pass + 1;
+  for (int g = start; g < n;) {  // galloping from the floor: start, start + 1, start + 3, ...
+    if (!reaches(all, group, levels, g, yes, r, next)) return false;
+    next = onward();
     if (!yes) {
       fail = g;
       break;
     }
     pass = g;
     if (g == n - 1) break;
-    g = std::min(2 * g + 1, n - 1);
+    g = std::min(2 * g + 1 - start, n - 1);
   }
   while (fail - pass > 1) {
     const int g = pass + (fail - pass) / 2;
-    if (!reaches(all, group, levels, g, yes, r)) return false;
+    if (!reaches(all, group, levels, g, yes, r, onward())) return false;
     (yes ? pass : fail) = g;
   }
   for (int k : all) lp().set_column_bounds(master_.growth_column(k), 0.0, 0.0);
@@ -926,6 +951,10 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
     r.stats.paths_dropped += first.paths_dropped;
     r.stats.paths_restored += first.paths_restored;
     r.stats.saturation_tests += first.saturation_tests;
+    r.stats.amount_tests += first.amount_tests;
+    r.stats.seconds_raising += first.seconds_raising;
+    r.stats.seconds_amount_tests += first.seconds_amount_tests;
+    r.stats.seconds_saturation_tests += first.seconds_saturation_tests;
     r.stats.retries = first.retries + 1;
   };
   MultiflowResult r = attempt(options);

@@ -17,7 +17,7 @@
 // Column pool: pricing adds paths every round, and most of them end up unused (at 2,000
 // demands on a 149-node backbone, 22,000 paths for 4,300 rows). Every simplex iteration
 // prices all columns, so the unused ones cost time on every iteration. When the paths
-// outnumber the rows path_pool times (2 by default), those out of the basis, at zero, with a reduced cost above the
+// outnumber the rows path_pool times (FairOptions::path_pool, 0.5), those out of the basis, at zero, with a reduced cost above the
 // pricing tolerance are dropped before the next solve; the basis stays valid, and a dropped
 // path that becomes attractive again is priced back in. An LP that turns infeasible gets
 // every dropped path back and is solved again (see solve()) (the standard column management of

@@ -132,7 +132,8 @@ std::string multiflow_json(const Network& net, const MultiflowResult& r) {
   }
   root["stats"] = {{"lp_solves", r.stats.lp_solves}, {"simplex_iterations", r.stats.simplex_iterations},
                    {"pricing_rounds", r.stats.pricing_rounds}, {"path_columns", r.stats.path_columns},
-                   {"paths_dropped", r.stats.paths_dropped}, {"saturation_tests", r.stats.saturation_tests}};
+                   {"paths_dropped", r.stats.paths_dropped}, {"saturation_tests", r.stats.saturation_tests},
+                   {"amount_tests", r.stats.amount_tests}};
   return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
 }
 

@@ -217,6 +217,7 @@ std::optional<MultiflowResult> read_multiflow_json(const Network& net, const std
   r.stats.path_columns = count_of<int>(stats, "path_columns");
   r.stats.paths_dropped = count_of<int>(stats, "paths_dropped");
   r.stats.saturation_tests = count_of<int>(stats, "saturation_tests");
+  r.stats.amount_tests = count_of<int>(stats, "amount_tests");
   return r;
 }
 

@@ -3,7 +3,8 @@
 // per file:
 //   <file> <milliseconds> <lp solves> <simplex iterations> <iterations without hot start>
 //   <tiers> <shares...>
-// for shell/bench/fair_benchmark.py. Options:
+// for shell/bench/fair_benchmark.py, and on standard error where the max-min rounds' time
+// went (raising the level, the amount search, the saturation tests). Options:
 //   --warm-up      one untimed solve first (node compiles WebAssembly in a baseline tier
 //                  before its optimising tier; the first run would time the compiler)
 //   --cold         also solve with every LP from scratch (else that field is -1)
@@ -11,8 +12,10 @@
 //                  simplex after every round (FairOptions::dual_rounds) and one round per
 //                  amount level (FairOptions::amount_search off)
 //   --no-amount-search  only the latter
-//
+//   --no-amount-floor   the amount search from the lowest amount level, without the LP that
+//                  lifts the amounts first (FairOptions::amount_floor off)
 //   --no-purge     keep every path priced in (FairOptions::path_pool 0)
+//   --pool R       the column pool at R times the rows (FairOptions::path_pool; default 0.5)
 //   --by-origin    the max-min rounds on the LP with the demands aggregated by origin at
 //                  every size (FairOptions::origin_rounds_from 0)
 //   --per-demand   the max-min rounds on the per-demand LP at every size, the method
@@ -22,9 +25,10 @@
 //                  iterations, levels and the largest error bound relative to the largest
 //                  share
 //   --certify-shares  the same from the shares alone (LP witnesses)
-// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...
 #include <chrono>
 #include <cstdio>
+#include <cstdlib>
 #include <cstring>
 #include <fstream>
 #include <sstream>
@@ -45,6 +49,7 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 
 int main(int argc, char** argv) {
   bool warm_up = false, cold = false, dual_rounds = false, amount_search = true, certify = false, shares_only = false;
+  bool amount_floor = true;
   double path_pool = apportion::FairOptions{}.path_pool;
   int origin_rounds_from = apportion::FairOptions{}.origin_rounds_from;
   int first = 1;
@@ -55,6 +60,8 @@ int main(int argc, char** argv) {
                                                                    origin_rounds_from = apportion::FairOptions::kNever;
     else if (std::strcmp(argv[first], "--no-amount-search") == 0) amount_search = false;
     else if (std::strcmp(argv[first], "--no-purge") == 0) path_pool = 0;
+    else if (std::strcmp(argv[first], "--pool") == 0 && first + 1 < argc) path_pool = std::atof(argv[++first]);
+    else if (std::strcmp(argv[first], "--no-amount-floor") == 0) amount_floor = false;
     else if (std::strcmp(argv[first], "--by-origin") == 0) origin_rounds_from = 0;
     else if (std::strcmp(argv[first], "--per-demand") == 0) origin_rounds_from = apportion::FairOptions::kNever;
     else if (std::strcmp(argv[first], "--certify") == 0) certify = true;
@@ -63,7 +70,7 @@ int main(int argc, char** argv) {
   }
   if (first >= argc) {
     std::fprintf(stderr,
-                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-purge] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...\n");
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -79,6 +86,7 @@ int main(int argc, char** argv) {
     opt.compare_throughput = false;
     opt.dual_rounds = dual_rounds;
     opt.amount_search = amount_search;
+    opt.amount_floor = amount_floor;
     opt.path_pool = path_pool;
     opt.origin_rounds_from = origin_rounds_from;
     apportion::MultiflowResult r;
@@ -112,6 +120,9 @@ int main(int argc, char** argv) {
                    argv[i], apportion::status_name(c.status), cms, c.stats.lp_solves, c.stats.simplex_iterations, c.levels,
                    c.witnesses_used, c.witnesses_refused, c.witness_tolerance, c.max_relative_error);
     }
+    std::fprintf(stderr, "%s rounds: raising the level %.1f s, amount search %d LPs %.1f s, saturation tests %d LPs %.1f s\n",
+                 argv[i], r.stats.seconds_raising, r.stats.amount_tests, r.stats.seconds_amount_tests,
+                 r.stats.saturation_tests, r.stats.seconds_saturation_tests);
     std::printf("%s %.3f %d %lld %lld %zu", argv[i], ms, r.stats.lp_solves, r.stats.simplex_iterations,
                 cold_iterations, r.tiers.size());
     for (const auto& d : r.demands) std::printf(" %.17g", d.share);

@@ -301,7 +301,8 @@ int run_fair(int argc, char** argv) {
             << num(r.check.max_capacity_violation) << ", conservation " << num(r.check.max_conservation_violation)
             << ", each relative to its own arc or demand)\n";
   std::cout << r.stats.lp_solves << " LP solves, " << r.stats.simplex_iterations << " simplex iterations, "
-            << r.stats.path_columns << " paths generated, " << r.stats.saturation_tests << " saturation tests\n";
+            << r.stats.path_columns << " paths generated, " << r.stats.saturation_tests << " saturation tests, "
+            << r.stats.amount_tests << " amount tests\n";
   // The certificate's verdict: proven to 1e-6 of the largest share, or not.
   constexpr double kProven = 1e-6;
   bool unproven = false;
