@@ -944,18 +944,8 @@ MultiflowResult solve_multiflow(const Network& net, const FairOptions& options) 
   auto again = [&](MultiflowResult& r, const FairOptions& other) {
     const MultiflowStats first = r.stats;
     r = attempt(other);
-    r.stats.lp_solves += first.lp_solves;
-    r.stats.simplex_iterations += first.simplex_iterations;
-    r.stats.pricing_rounds += first.pricing_rounds;
-    r.stats.path_columns += first.path_columns;
-    r.stats.paths_dropped += first.paths_dropped;
-    r.stats.paths_restored += first.paths_restored;
-    r.stats.saturation_tests += first.saturation_tests;
-    r.stats.amount_tests += first.amount_tests;
-    r.stats.seconds_raising += first.seconds_raising;
-    r.stats.seconds_amount_tests += first.seconds_amount_tests;
-    r.stats.seconds_saturation_tests += first.seconds_saturation_tests;
-    r.stats.retries = first.retries + 1;
+    r.stats.add(first);
+    ++r.stats.retries;
   };
   MultiflowResult r = attempt(options);
   // Rounds aggregated by origin that fail (numerical trouble in their LPs) give way to the

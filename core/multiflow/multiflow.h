@@ -73,8 +73,8 @@ struct FairOptions {
   // unattractive once the paths outnumber the rows this many times (path_master.h); 0: every
   // path priced in stays, the method before, kept to measure against. 0.5 drops them after
   // every pricing round at the sizes that matter (the basis alone holds about one path per
-  // demand, against two rows); measured 1.2-1.8x faster than the earlier 2 on the shared
-  // backbones, the same elsewhere (README, Benchmark).
+  // demand, against two rows); measured with the amount search's floor 1.0-1.3x faster
+  // than the earlier 2 up to 2,000 demands, the same at 5,000 (README, Benchmark).
   double path_pool = 0.5;
   // From this many demands on, the max-min rounds run on the LP with the demands aggregated
   // by origin (origin_master.h: one row per arc and one per group of an origin's demands,
@@ -153,6 +153,22 @@ struct MultiflowStats {
   // search's and the saturation tests' (each with its pricing rounds).
   double seconds_raising = 0.0, seconds_amount_tests = 0.0, seconds_saturation_tests = 0.0;
   int retries = 0;           // times the network was solved again another way (solve_multiflow)
+
+  // Every count and time of `o` added to these (a solve run again adds the first one's).
+  void add(const MultiflowStats& o) {
+    lp_solves += o.lp_solves;
+    simplex_iterations += o.simplex_iterations;
+    pricing_rounds += o.pricing_rounds;
+    path_columns += o.path_columns;
+    paths_dropped += o.paths_dropped;
+    paths_restored += o.paths_restored;
+    saturation_tests += o.saturation_tests;
+    amount_tests += o.amount_tests;
+    seconds_raising += o.seconds_raising;
+    seconds_amount_tests += o.seconds_amount_tests;
+    seconds_saturation_tests += o.seconds_saturation_tests;
+    retries += o.retries;
+  }
 };
 
 // Proven bounds on each demand's exact weighted max-min fair share, for any allocation
