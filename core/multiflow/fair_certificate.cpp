@@ -8,6 +8,7 @@
 #include <map>
 
 #include "apportion/flow/flow_graph.h"
+#include "apportion/multiflow/dual_distances.h"
 #include "apportion/multiflow/path_master.h"
 #include "apportion/multiflow/path_pricing.h"
 #include "apportion/multiflow/unit_scale.h"
@@ -300,40 +301,11 @@ struct CompensatedSum {
 }  // namespace
 
 void Certifier::upper_from_duals() {
-  std::vector<double> y(g_.arc_count(), 0.0);
-  double largest = 0.0;
-  for (int a = 0; a < g_.arc_count(); ++a) {
-    const int row = master_.capacity_row(a);
-    // "<=" rows have duals <= 0 at a minimum; any y >= 0 gives a valid bound, so clip.
-    if (row >= 0) y[a] = std::max(0.0, -lp().row_dual(row)), largest = std::max(largest, y[a]);
-  }
-  // Duals within 1e-9 of the largest are rounding noise of a zero: dropped (again any y >= 0
-  // is valid). Kept, they give demands tiny distances d_k, and an upper bound
-  // L_k + G / d_k that magnifies every error in G by 1 / d_k.
+  const std::vector<double> y = capacity_prices(master_, g_.arc_count());
   CompensatedSum capacity_value;
-  for (int a = 0; a < g_.arc_count(); ++a) {
-    if (y[a] < 1e-9 * largest) y[a] = 0.0;
-    capacity_value.add(g_.capacity(a) * y[a]);
-  }
+  for (int a = 0; a < g_.arc_count(); ++a) capacity_value.add(g_.capacity(a) * y[a]);
   if (!(capacity_value.value() > 0)) return;
-  // d_k(y): the shortest allowed path of each demand under y.
-  std::vector<double> dist(K(), kInf);
-  if (routing_.k_paths > 0) {
-    for (const MasterPath& p : master_.paths()) {
-      double len = 0.0;
-      for (int l : p.lanes) len += y[master_.lanes()[l].arc];
-      dist[p.demand] = std::min(dist[p.demand], len);
-    }
-  } else {
-    std::vector<std::vector<int>> by_origin(g_.node_count());
-    for (int k = 0; k < K(); ++k)
-      if (master_.reachable(k)) by_origin[specs_[k].origin].push_back(k);
-    for (int o = 0; o < g_.node_count(); ++o) {
-      if (by_origin[o].empty()) continue;
-      pricer_.search(o, y);
-      for (int k : by_origin[o]) dist[k] = pricer_.distance(specs_[k].destination);
-    }
-  }
+  const std::vector<double> dist = demand_distances(master_, pricer_, specs_, y, routing_.k_paths > 0);
   CompensatedSum carried;
   for (int k = 0; k < K(); ++k)
     if (std::isfinite(dist[k]) && lower_[k] > 0) carried.add(lower_[k] * dist[k]);

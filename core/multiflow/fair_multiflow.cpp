@@ -11,6 +11,7 @@
 #include "apportion/flow/flow_graph.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/tolerance.h"
+#include "apportion/multiflow/dual_distances.h"
 #include "apportion/multiflow/fair_certificate.h"
 #include "apportion/multiflow/origin_master.h"
 #include "apportion/multiflow/path_master.h"
@@ -55,6 +56,7 @@ class Engine {
         g_(FlowGraph::from_network(net)),
         specs_(demand_specs(net)),
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
+        pricer_(g_, usable_arcs(g_), opt.routing.k_paths > 0 ? 0 : opt.routing.hop_limit),
         demand_tol_(demand_tolerances()) {
     master_.lp().set_hot_start(opt.hot_start);
     master_.set_path_pool(opt.path_pool);
@@ -113,6 +115,7 @@ class Engine {
   bool use_origins() const { return rounds_by_origin(opt_, K()); }
   bool reaches(const std::vector<int>& open, const std::vector<int>& group, const std::vector<double>& levels, int g,
                bool& yes, MultiflowResult& r, LpSolver::Method method);
+  double ceiling(const std::vector<int>& all, const std::vector<char>& frozen, const std::vector<double>& fair);
   bool settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::vector<char>& frozen,
                       const std::vector<int>& at_amount, const std::vector<int>& open, double t, double& no_search_from,
                       bool& settled);
@@ -143,6 +146,7 @@ class Engine {
   FlowGraph g_;
   std::vector<DemandSpec> specs_;
   PathMaster master_;
+  PathPricer pricer_;  // distances under the amount search's prices (ceiling)
   std::vector<Tolerance> demand_tol_;  // per demand: 1e-9 of its own scale (demand_tolerances)
   std::vector<double> concurrent_lengths_;
   SolveProgress progress_;
@@ -477,6 +481,38 @@ bool Engine::reaches(const std::vector<int>& open, const std::vector<int>& group
   return true;
 }
 
+// A level above which no amount level can pass: from the last LP's capacity prices y >= 0,
+// every routing has sum_k f_k d_k(y) <= sum_e c_e y_e (d_k(y) the shortest allowed path of k
+// under y; weak LP duality of the path formulation, as in fair_certificate.h). A routing that
+// gives every demand of `all` min(w_k G, a_k) and every frozen demand its share therefore
+// needs F(G) = sum_all min(w_k G, a_k) d_k(y) <= sum_e c_e y_e - sum_frozen s_k d_k(y); F is
+// piecewise linear and nondecreasing, so the highest such G is found by walking its
+// breakpoints a_k / w_k in order. kInf when the prices bound nothing.
+double Engine::ceiling(const std::vector<int>& all, const std::vector<char>& frozen, const std::vector<double>& fair) {
+  const std::vector<double> y = capacity_prices(master_, g_.arc_count());
+  double budget = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a) budget += g_.capacity(a) * y[a];
+  if (!(budget > 0)) return kInf;
+  const std::vector<double> dist = demand_distances(master_, pricer_, specs_, y, opt_.routing.k_paths > 0);
+  for (int k = 0; k < K(); ++k)
+    if (frozen[k] && std::isfinite(dist[k])) budget -= fair[k] * dist[k];
+  std::vector<std::pair<double, int>> breaks;  // (a_k / w_k, k)
+  double slope = 0.0, fixed = 0.0;
+  for (int k : all) {
+    if (!std::isfinite(dist[k]) || !(dist[k] > 0)) continue;
+    breaks.push_back({specs_[k].amount / specs_[k].weight, k});
+    slope += specs_[k].weight * dist[k];
+  }
+  std::sort(breaks.begin(), breaks.end());
+  for (const auto& [c, k] : breaks) {
+    if (!std::isfinite(c)) break;
+    if (fixed + slope * c > budget) break;  // F(c) already above: the root lies below c
+    fixed += specs_[k].amount * dist[k];
+    slope -= specs_[k].weight * dist[k];
+  }
+  return slope > 1e-300 ? (budget - fixed) / slope : kInf;
+}
+
 // Step 2a of fair_multiflow.h. The round reached t, the smallest amount level of the open
 // demands, and froze only demands at their amounts (at_amount). If every open demand can have
 // min(w_k G, a_k) at once for an amount level G > t, no bottleneck stops any demand below G,
@@ -527,13 +563,26 @@ bool Engine::settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::
     ++r.stats.amount_tests;
     if (!solve(r, onward(), &r.stats.seconds_amount_tests)) return false;
     const double floor = lp().value(master_.level_column()) * (1.0 - 1e-7);
+    // The floor LP's prices also bound the search from above (ceiling): levels more than
+    // 1e-6 above fail untested (the margin covers the LP tolerances, 1e-7, by ten).
+    const double top = opt_.amount_ceiling ? ceiling(all, frozen, fair) * (1.0 + 1e-6) : kInf;
     for (int k : all) share_bounds(k, 0.0, specs_[k].amount);
     pass = static_cast<int>(std::upper_bound(levels.begin(), levels.end(), floor) - levels.begin()) - 1;
+    fail = std::max(pass + 1, static_cast<int>(std::upper_bound(levels.begin(), levels.end(), top) - levels.begin()));
     // Shares above their amounts are now out of bounds: the dual simplex restores them.
     next = LpSolver::Method::kDual;
+    if (fail == pass + 1 && pass >= 0) {
+      // The floor and the ceiling closed the search: one test at the level reached, which
+      // the floor passes, still restores the shares, so that the next round starts from a
+      // feasible point (from the floor LP's point, its dual simplex failed: all pairs of
+      // GtsCe, README, Benchmark).
+      if (!reaches(all, group, levels, pass, yes, r, next)) return false;
+      next = onward();
+      if (!yes) fail = pass, pass = -1;  // not even that (the LP tolerances): search below it
+    }
   }
   const int start = pass + 1;
-  for (int g = start; g < n;) {  // galloping from the floor: start, start + 1, start + 3, ...
+  for (int g = start; g < fail;) {  // galloping from the floor: start, start + 1, start + 3, ...
     if (!reaches(all, group, levels, g, yes, r, next)) return false;
     next = onward();
     if (!yes) {
@@ -541,12 +590,13 @@ bool Engine::settle_amounts(MultiflowResult& r, std::vector<double>& fair, std::
       break;
     }
     pass = g;
-    if (g == n - 1) break;
-    g = std::min(2 * g + 1 - start, n - 1);
+    if (g == fail - 1) break;
+    g = std::min(2 * g + 1 - start, fail - 1);
   }
   while (fail - pass > 1) {
     const int g = pass + (fail - pass) / 2;
-    if (!reaches(all, group, levels, g, yes, r, onward())) return false;
+    if (!reaches(all, group, levels, g, yes, r, next)) return false;
+    next = onward();
     (yes ? pass : fail) = g;
   }
   for (int k : all) lp().set_column_bounds(master_.growth_column(k), 0.0, 0.0);

@@ -24,6 +24,9 @@
 //      floor: one LP raises the level with the open demands' amounts lifted, to t_u; that
 //      routing, scaled down to the amounts, gives every demand min(w_k t_u, a_k), so every
 //      level up to t_u passes untested, and the galloping starts there, near the answer.
+//      That LP's capacity prices y bound the search from above too: every routing has
+//      sum_k f_k d_k(y) <= sum_e c_e y_e (weak duality, d_k(y) the shortest path under y), so
+//      levels G with sum_k min(w_k G, a_k) d_k(y) above the prices' budget fail untested.
 //      (Measured on all pairs of GtsCe: galloping from the lowest level spent most of its
 //      time in its last, farthest tests; README, Benchmark.)
 //   3. settle the rest exactly: with t fixed at t*, maximise the sum of their growths

@@ -69,6 +69,9 @@ struct FairOptions {
   // (one LP; fair_multiflow.h, step 2a); false: from the lowest amount level, the method
   // before, kept to measure against.
   bool amount_floor = true;
+  // With the floor: levels above a bound from the floor LP's prices fail untested
+  // (fair_multiflow.cpp, ceiling); false: they are tested, to measure against.
+  bool amount_ceiling = true;
   // Column generation drops the path columns that the LP does not use and that price
   // unattractive once the paths outnumber the rows this many times (path_master.h); 0: every
   // path priced in stays, the method before, kept to measure against. 0.5 drops them after

@@ -14,6 +14,8 @@
 //   --no-amount-search  only the latter
 //   --no-amount-floor   the amount search from the lowest amount level, without the LP that
 //                  lifts the amounts first (FairOptions::amount_floor off)
+//   --no-amount-ceiling  with the floor, test the levels above its prices' bound too
+//                  (FairOptions::amount_ceiling off)
 //   --no-purge     keep every path priced in (FairOptions::path_pool 0)
 //   --pool R       the column pool at R times the rows (FairOptions::path_pool; default 0.5)
 //   --by-origin    the max-min rounds on the LP with the demands aggregated by origin at
@@ -25,7 +27,7 @@
 //                  iterations, levels and the largest error bound relative to the largest
 //                  share
 //   --certify-shares  the same from the shares alone (LP witnesses)
-// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...
+// usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-amount-ceiling] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...
 #include <chrono>
 #include <cstdio>
 #include <cstdlib>
@@ -49,7 +51,7 @@ double timed_solve(const apportion::Network& net, const apportion::FairOptions& 
 
 int main(int argc, char** argv) {
   bool warm_up = false, cold = false, dual_rounds = false, amount_search = true, certify = false, shares_only = false;
-  bool amount_floor = true;
+  bool amount_floor = true, amount_ceiling = true;
   double path_pool = apportion::FairOptions{}.path_pool;
   int origin_rounds_from = apportion::FairOptions{}.origin_rounds_from;
   int first = 1;
@@ -62,6 +64,7 @@ int main(int argc, char** argv) {
     else if (std::strcmp(argv[first], "--no-purge") == 0) path_pool = 0;
     else if (std::strcmp(argv[first], "--pool") == 0 && first + 1 < argc) path_pool = std::atof(argv[++first]);
     else if (std::strcmp(argv[first], "--no-amount-floor") == 0) amount_floor = false;
+    else if (std::strcmp(argv[first], "--no-amount-ceiling") == 0) amount_ceiling = false;
     else if (std::strcmp(argv[first], "--by-origin") == 0) origin_rounds_from = 0;
     else if (std::strcmp(argv[first], "--per-demand") == 0) origin_rounds_from = apportion::FairOptions::kNever;
     else if (std::strcmp(argv[first], "--certify") == 0) certify = true;
@@ -70,7 +73,7 @@ int main(int argc, char** argv) {
   }
   if (first >= argc) {
     std::fprintf(stderr,
-                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...\n");
+                 "usage: apportion-fair-bench [--warm-up] [--cold] [--baseline | --no-amount-search] [--no-amount-floor] [--no-amount-ceiling] [--no-purge | --pool R] [--by-origin | --per-demand] [--certify | --certify-shares] FILE...\n");
     return 2;
   }
   for (int i = first; i < argc; ++i) {
@@ -87,6 +90,7 @@ int main(int argc, char** argv) {
     opt.dual_rounds = dual_rounds;
     opt.amount_search = amount_search;
     opt.amount_floor = amount_floor;
+    opt.amount_ceiling = amount_ceiling;
     opt.path_pool = path_pool;
     opt.origin_rounds_from = origin_rounds_from;
     apportion::MultiflowResult r;

@@ -313,20 +313,22 @@ TEST_CASE("max-min: the rounds aggregated by origin give the per-demand rounds' 
 
 // The amount search (fair_multiflow.h, step 2a) must give what one round per amount level
 // gives: the same shares, the same tiers at the same levels; and so must the search without
-// its floor (FairOptions::amount_floor). Instances with many demands limited by their
+// its floor (FairOptions::amount_floor) or its ceiling (amount_ceiling). Instances with many demands limited by their
 // amounts, and integer data so that amount levels often coincide with bottleneck levels.
 TEST_CASE("max-min: the amount search settles runs of amounts as one round each would", "[fair][property]") {
   std::mt19937_64 rng(1618);
-  int batched = 0, floored = 0;
+  int batched = 0, floored = 0, ceiled = 0;
   for (int i = 0; i < 30; ++i) {
     const int nodes = 4 + static_cast<int>(rng() % 5);
     Network net = random_network(rng, nodes, nodes + 4 + static_cast<int>(rng() % 8), 8 + static_cast<int>(rng() % 16));
     for (Demand& d : net.demands)
       if (rng() % 5 != 0) d.amount = 0.25 * static_cast<double>(1 + rng() % 12);
-    FairOptions on, off, from_lowest;
+    FairOptions on, off, from_lowest, no_ceiling;
     off.amount_search = false;
     from_lowest.amount_floor = false;
-    const MultiflowResult a = solve_multiflow(net, on), b = solve_multiflow(net, off), c = solve_multiflow(net, from_lowest);
+    no_ceiling.amount_ceiling = false;
+    const MultiflowResult a = solve_multiflow(net, on), b = solve_multiflow(net, off), c = solve_multiflow(net, from_lowest),
+                          d = solve_multiflow(net, no_ceiling);
     INFO("instance " << i);
     REQUIRE(a.status == SolveStatus::kOptimal);
     REQUIRE(b.status == SolveStatus::kOptimal);
@@ -335,6 +337,8 @@ TEST_CASE("max-min: the amount search settles runs of amounts as one round each 
     for (std::size_t k = 0; k < net.demands.size(); ++k) {
       CHECK_THAT(c.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
       CHECK(c.demands[k].tier == b.demands[k].tier);
+      CHECK_THAT(d.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
+      CHECK(d.demands[k].tier == b.demands[k].tier);
       CHECK_THAT(a.demands[k].share, WithinAbs(b.demands[k].share, 1e-7));
       CHECK(a.demands[k].tier == b.demands[k].tier);
       CHECK(a.demands[k].limited_by_amount == b.demands[k].limited_by_amount);
@@ -345,12 +349,14 @@ TEST_CASE("max-min: the amount search settles runs of amounts as one round each 
       CHECK(a.tiers[t].demands == b.tiers[t].demands);
     }
     batched += a.stats.lp_solves < b.stats.lp_solves;
-    floored += a.stats.amount_tests < c.stats.amount_tests;
+    floored += d.stats.amount_tests < c.stats.amount_tests;
+    ceiled += a.stats.amount_tests < d.stats.amount_tests;
   }
-  // The search has to have settled runs of amounts in some of them, and its floor to have
-  // saved tests in some, or this tested nothing.
+  // The search has to have settled runs of amounts in some of them, and its floor and
+  // ceiling to have saved tests in some, or this tested nothing.
   CHECK(batched >= 5);
   CHECK(floored >= 5);
+  CHECK(ceiled >= 3);
 }
 
 // Dropping unused path columns (path_master.h, the column pool) must change no result: the
