@@ -8,9 +8,7 @@
 #include <map>
 
 #include "apportion/flow/flow_graph.h"
-#include "apportion/multiflow/dual_distances.h"
 #include "apportion/multiflow/path_master.h"
-#include "apportion/multiflow/path_pricing.h"
 #include "apportion/multiflow/unit_scale.h"
 
 namespace apportion {
@@ -44,9 +42,7 @@ class Certifier {
         specs_(demand_specs(scaled)),
         shares_(shares),
         routing_(routing),
-        usable_(usable_arcs(g_)),
-        master_(g_, specs_, routing, std::vector<double>(g_.arc_count(), 1.0)),
-        pricer_(g_, usable_, routing.k_paths > 0 ? 0 : routing.hop_limit) {
+        master_(g_, specs_, routing, std::vector<double>(g_.arc_count(), 1.0)) {
     master_.lp().set_feasibility_tolerance(kLpTolerance);
     if (routes) start_from(*routes);
   }
@@ -105,9 +101,7 @@ class Certifier {
   std::vector<DemandSpec> specs_;
   std::vector<double> shares_;
   RoutingOptions routing_;
-  std::vector<char> usable_;
   PathMaster master_;
-  PathPricer pricer_;
   std::vector<double> lower_, upper_;
   bool solved_ = false;              // the LP holds a solution
   double tolerance_ = 0.0;           // the most any accepted witness missed by, relative
@@ -301,11 +295,11 @@ struct CompensatedSum {
 }  // namespace
 
 void Certifier::upper_from_duals() {
-  const std::vector<double> y = capacity_prices(master_, g_.arc_count());
+  const std::vector<double> y = master_.capacity_prices();
   CompensatedSum capacity_value;
   for (int a = 0; a < g_.arc_count(); ++a) capacity_value.add(g_.capacity(a) * y[a]);
   if (!(capacity_value.value() > 0)) return;
-  const std::vector<double> dist = demand_distances(master_, pricer_, specs_, y, routing_.k_paths > 0);
+  const std::vector<double> dist = master_.distances(y);
   CompensatedSum carried;
   for (int k = 0; k < K(); ++k)
     if (std::isfinite(dist[k]) && lower_[k] > 0) carried.add(lower_[k] * dist[k]);

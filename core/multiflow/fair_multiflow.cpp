@@ -11,7 +11,6 @@
 #include "apportion/flow/flow_graph.h"
 #include "apportion/model/number_text.h"
 #include "apportion/model/tolerance.h"
-#include "apportion/multiflow/dual_distances.h"
 #include "apportion/multiflow/fair_certificate.h"
 #include "apportion/multiflow/origin_master.h"
 #include "apportion/multiflow/path_master.h"
@@ -56,7 +55,6 @@ class Engine {
         g_(FlowGraph::from_network(net)),
         specs_(demand_specs(net)),
         master_(g_, specs_, opt.routing, std::vector<double>(g_.arc_count(), 1.0)),
-        pricer_(g_, usable_arcs(g_), opt.routing.k_paths > 0 ? 0 : opt.routing.hop_limit),
         demand_tol_(demand_tolerances()) {
     master_.lp().set_hot_start(opt.hot_start);
     master_.set_path_pool(opt.path_pool);
@@ -146,7 +144,6 @@ class Engine {
   FlowGraph g_;
   std::vector<DemandSpec> specs_;
   PathMaster master_;
-  PathPricer pricer_;  // distances under the amount search's prices (ceiling)
   std::vector<Tolerance> demand_tol_;  // per demand: 1e-9 of its own scale (demand_tolerances)
   std::vector<double> concurrent_lengths_;
   SolveProgress progress_;
@@ -489,11 +486,11 @@ bool Engine::reaches(const std::vector<int>& open, const std::vector<int>& group
 // piecewise linear and nondecreasing, so the highest such G is found by walking its
 // breakpoints a_k / w_k in order. kInf when the prices bound nothing.
 double Engine::ceiling(const std::vector<int>& all, const std::vector<char>& frozen, const std::vector<double>& fair) {
-  const std::vector<double> y = capacity_prices(master_, g_.arc_count());
+  const std::vector<double> y = master_.capacity_prices();
   double budget = 0.0;
   for (int a = 0; a < g_.arc_count(); ++a) budget += g_.capacity(a) * y[a];
   if (!(budget > 0)) return kInf;
-  const std::vector<double> dist = demand_distances(master_, pricer_, specs_, y, opt_.routing.k_paths > 0);
+  const std::vector<double> dist = master_.distances(y);
   for (int k = 0; k < K(); ++k)
     if (frozen[k] && std::isfinite(dist[k])) budget -= fair[k] * dist[k];
   std::vector<std::pair<double, int>> breaks;  // (a_k / w_k, k)

@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <map>
 
 #include "apportion/multiflow/k_shortest_paths.h"
@@ -160,6 +161,37 @@ int PathMaster::price() {
     }
   }
   return added;
+}
+
+std::vector<double> PathMaster::capacity_prices() const {
+  std::vector<double> y(g_.arc_count(), 0.0);
+  double largest = 0.0;
+  for (int a = 0; a < g_.arc_count(); ++a)
+    if (cap_row_[a] >= 0) y[a] = std::max(0.0, -lp_.row_dual(cap_row_[a])), largest = std::max(largest, y[a]);
+  for (double& v : y)
+    if (v < 1e-9 * largest) v = 0.0;
+  return y;
+}
+
+std::vector<double> PathMaster::distances(const std::vector<double>& y) {
+  std::vector<double> dist(demands_.size(), std::numeric_limits<double>::infinity());
+  if (routing_.k_paths > 0) {
+    for (const MasterPath& p : paths_) {
+      double len = 0.0;
+      for (int l : p.lanes) len += y[pricer_.lanes()[l].arc];
+      dist[p.demand] = std::min(dist[p.demand], len);
+    }
+    return dist;
+  }
+  for (int o = 0; o < g_.node_count(); ++o) {
+    bool searched = false;
+    for (int k : demands_by_origin_[o]) {
+      if (!reachable_[k]) continue;
+      if (!searched) pricer_.search(o, y), searched = true;
+      dist[k] = pricer_.distance(demands_[k].destination);
+    }
+  }
+  return dist;
 }
 
 LpStatus PathMaster::solve(LpSolver::Method first) {

@@ -84,6 +84,21 @@ class PathMaster {
 
   const std::vector<Lane>& lanes() const { return pricer_.lanes(); }
   const std::vector<MasterPath>& paths() const { return paths_; }
+
+  // Weak duality of the path formulation: for arc lengths y >= 0 and d_k(y) the length of
+  // demand k's shortest allowed path, every routing within the capacities has
+  // sum_k f_k d_k(y) <= sum_e c_e y_e (each unit of flow of k uses a path at least d_k long;
+  // R. Ahuja, T. Magnanti, J. Orlin, "Network Flows", 1993, ch. 17). Any y >= 0 gives a
+  // valid bound, the last solve's duals a tight one; the fairness certificate and the
+  // amount search's ceiling use it.
+  // y per arc from the capacity rows' duals of the last solve: "<=" rows have duals <= 0 at
+  // a minimum, so y = max(0, -dual); prices below 1e-9 of the largest are set to 0. They are
+  // rounding noise of a zero, and kept they would give demands tiny distances d_k and
+  // magnify every error of a bound divided by d_k.
+  std::vector<double> capacity_prices() const;
+  // d_k(y) for every demand: over its paths for a fixed path set (k shortest paths), else
+  // by one shortest-path tree per origin within the hop limit; +inf where it has no path.
+  std::vector<double> distances(const std::vector<double>& y);
   const MultiflowStats& stats() const { return stats_; }
   void set_path_pool(double ratio) { path_pool_ = ratio; }  // see FairOptions::path_pool
 
